@@ -1,0 +1,17 @@
+import type { Knex } from 'knex';
+
+// The table shape connect-pg-simple expects (its table.sql), so sessions survive restarts and
+// several servers can share them.
+export async function up(knex: Knex): Promise<void> {
+  await knex.raw(`
+    CREATE TABLE sessions (
+      sid varchar NOT NULL PRIMARY KEY,
+      sess json NOT NULL,
+      expire timestamp(6) NOT NULL
+    )`);
+  await knex.raw('CREATE INDEX sessions_expire_idx ON sessions (expire)');
+}
+
+export async function down(knex: Knex): Promise<void> {
+  await knex.schema.dropTable('sessions');
+}
