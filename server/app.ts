@@ -91,8 +91,13 @@ export function createApp(deps: AppDeps): Express {
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.get('x-csrf-token'),
   });
-  const csrf: express.RequestHandler = (req, res, next) =>
-    res.locals.principal?.type === 'token' ? next() : csrfSynchronisedProtection(req, res, next);
+  // Anonymous calls outside /auth change nothing (the route guard answers 401), so only sign-in
+  // and signed-in people's writes are checked.
+  const csrf: express.RequestHandler = (req, res, next) => {
+    const p = res.locals.principal;
+    if (p?.type === 'token' || (!p && !req.path.startsWith('/auth/'))) return next();
+    csrfSynchronisedProtection(req, res, next);
+  };
 
   const api = express.Router();
   api.use(express.json({ limit: deps.jsonLimit ?? '1mb' }));
