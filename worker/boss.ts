@@ -1,0 +1,18 @@
+import PgBoss from 'pg-boss';
+import type { DbSettings } from '../server/config';
+
+/** A pg-boss instance on our database; its tables live in their own schema. */
+export async function startBoss(db: DbSettings): Promise<PgBoss> {
+  const boss = new PgBoss({
+    host: db.host,
+    port: db.port,
+    user: db.user,
+    password: db.password,
+    database: db.database,
+    schema: 'pgboss',
+    max: 4,
+  });
+  boss.on('error', (e) => console.error('[worker] queue error:', e.message));
+  await boss.start();
+  return boss;
+}
