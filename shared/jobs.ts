@@ -13,3 +13,26 @@ export const heartbeatJobSchema = z.object({
   beatSeconds: z.number().int().positive(),
 });
 export type HeartbeatJob = z.infer<typeof heartbeatJobSchema>;
+
+/** One queue per vantage, so each vantage's workers take only their own runs. */
+export const probeQueue = (vantage: string) => `probe.${vantage}`;
+
+export const scheduledProbeJobSchema = z.object({
+  kind: z.literal('scheduled'),
+  journeyId: z.number().int().positive(),
+  version: z.number().int().positive(),
+  vantage: z.string().min(1),
+  slotAt: z.string().datetime(),
+});
+export type ScheduledProbeJob = z.infer<typeof scheduledProbeJobSchema>;
+
+/** "Try it now": a draft document run once, its result returned as the job's output, nothing stored. */
+export const tryProbeJobSchema = z.object({
+  kind: z.literal('try'),
+  document: z.unknown(),
+  vantage: z.string().min(1),
+});
+export type TryProbeJob = z.infer<typeof tryProbeJobSchema>;
+
+export const probeJobSchema = z.discriminatedUnion('kind', [scheduledProbeJobSchema, tryProbeJobSchema]);
+export type ProbeJob = z.infer<typeof probeJobSchema>;

@@ -2,8 +2,9 @@ import PgBoss from 'pg-boss';
 import type { DbSettings } from '../server/config';
 
 /** A pg-boss instance on our database; its tables live in their own schema. */
-export async function startBoss(db: DbSettings): Promise<PgBoss> {
+export async function startBoss(db: DbSettings, extra: Partial<PgBoss.ConstructorOptions> = {}): Promise<PgBoss> {
   const boss = new PgBoss({
+    ...extra,
     host: db.host,
     port: db.port,
     user: db.user,
