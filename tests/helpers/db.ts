@@ -19,10 +19,10 @@ export function testEnv(): NodeJS.ProcessEnv {
 
 export async function createTestDb(): Promise<TestDb> {
   const env = testEnv();
-  const name = `t_${crypto.randomBytes(6).toString('hex')}`;
+  const name = `${inject('testDbPrefix')}${crypto.randomBytes(6).toString('hex')}`;
   const admin = createKnex(dbSettings(env, 'postgres'), { max: 1 });
   try {
-    await admin.raw(`CREATE DATABASE ${name} TEMPLATE parallax_template`);
+    await admin.raw(`CREATE DATABASE ${name} TEMPLATE ${inject('templateDb')}`);
   } finally {
     await admin.destroy();
   }
