@@ -7,12 +7,16 @@ import path from 'node:path';
 import { dataDir, dbPort, dbSettings, httpPort } from '../server/config';
 import { createKnex } from '../server/db/knex';
 import { usersService } from '../server/services/users';
+import { loadSecretKey } from '../server/secrets/cipher';
+import { seedDemo } from './seed-demo';
 import { buildWeb } from './build-web';
 import { migrate } from './migrate';
 
 const root = path.resolve(__dirname, '..');
 const env = { ...process.env, PARALLAX_DATA_DIR: dataDir(), PARALLAX_DB_PORT: String(dbPort()) };
 const smtpPort = Number(process.env.PARALLAX_SMTP_PORT ?? 2525);
+const demoPort = Number(process.env.PARALLAX_DEMO_PORT ?? 8090);
+const vantage = process.env.PARALLAX_VANTAGE ?? 'local';
 
 function db(cmd: 'start' | 'stop' | 'status'): boolean {
   try {
@@ -77,11 +81,15 @@ async function main() {
 
   const knex = createKnex(dbSettings(env), { max: 2 });
   let firstRun: { email: string; password: string } | null = null;
+  let seeded = false;
   try {
     firstRun = await usersService(knex).bootstrapAdmin({
       email: process.env.PARALLAX_ADMIN_EMAIL,
       password: process.env.PARALLAX_ADMIN_PASSWORD,
     });
+    if (process.env.PARALLAX_DEMO !== '0') {
+      seeded = await seedDemo(knex, { targetUrl: `http://127.0.0.1:${demoPort}`, vantage, secretKey: loadSecretKey(env) });
+    }
   } finally {
     await knex.destroy();
   }
@@ -89,8 +97,9 @@ async function main() {
   buildWeb(false);
 
   run('mail sink', 'scripts/smtp-sink.ts', { PARALLAX_SMTP_PORT: String(smtpPort) });
+  if (process.env.PARALLAX_DEMO !== '0') run('demo target', 'scripts/demo-target.ts', { DEMO_TARGET_PORT: String(demoPort) });
   run('server', 'server/main.ts', { PARALLAX_SMTP_PORT: String(smtpPort) });
-  run('worker', 'worker/main.ts', { PARALLAX_VANTAGE: process.env.PARALLAX_VANTAGE ?? 'local', PARALLAX_SMTP_PORT: String(smtpPort) });
+  run('worker', 'worker/main.ts', { PARALLAX_VANTAGE: vantage, PARALLAX_SMTP_PORT: String(smtpPort) });
 
   const url = `http://127.0.0.1:${httpPort()}`;
   const lines = [
@@ -98,6 +107,10 @@ async function main() {
     `  Parallax is starting at ${url}`,
     `  data: ${dataDir()}   database: 127.0.0.1:${dbPort()}   mail sink: 127.0.0.1:${smtpPort}`,
   ];
+  if (process.env.PARALLAX_DEMO !== '0') {
+    lines.push(`  demo target (Quillmoor Tea Company, invented): http://127.0.0.1:${demoPort}, failure switches at http://127.0.0.1:${demoPort + 1}/control`);
+  }
+  if (seeded) lines.push('  Demo journeys "Find a tea" and "Buy a tea" were added; their first runs arrive within a minute.');
   if (firstRun) {
     lines.push(
       '',

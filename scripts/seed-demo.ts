@@ -1,0 +1,82 @@
+// Demo data for an empty database: the invented Quillmoor Tea Company (scripts/demo-target.ts)
+// on loopback, two journeys against it and the secret they use. Runs only when no journey exists.
+import type { Knex } from 'knex';
+import type { JourneyDocumentInput } from '../shared/journey/journey-schema';
+import { journeyDocumentSchema } from '../shared/journey/journey-schema';
+import { journeysService } from '../server/services/journeys';
+import { probeSettingsService } from '../server/services/probe-settings';
+import { secretsService } from '../server/services/secrets';
+import { DEMO_ACCOUNT } from './demo-target';
+
+const SYSTEM = { type: 'token' as const, id: 0, name: 'demo-seed', scopes: [] };
+
+export function demoJourneys(targetUrl: string, vantage: string): JourneyDocumentInput[] {
+  return [
+    {
+      name: 'Find a tea',
+      steps: [
+        {
+          name: 'Search for oolong',
+          method: 'GET',
+          url: `${targetUrl}/api/search?q=oolong`,
+          assertions: [
+            { kind: 'status', in: [200] },
+            { kind: 'json', path: '$.count', op: 'gt', value: 0 },
+            { kind: 'latency', underMs: 800 },
+          ],
+        },
+      ],
+      schedule: { kind: 'interval', everySeconds: 20 },
+      vantages: [vantage],
+    },
+    {
+      name: 'Buy a tea',
+      steps: [
+        {
+          name: 'Sign in',
+          method: 'POST',
+          url: `${targetUrl}/api/sign-in`,
+          headers: [{ name: 'Content-Type', value: 'application/json' }],
+          body: `{"email": "${DEMO_ACCOUNT.email}", "password": "{{secret.QUILLMOOR_PASSWORD}}"}`,
+          assertions: [{ kind: 'status', in: [200] }],
+          captures: [{ from: 'json', name: 'token', path: '$.token' }],
+        },
+        {
+          name: 'Add to basket',
+          method: 'POST',
+          url: `${targetUrl}/api/basket`,
+          headers: [
+            { name: 'Content-Type', value: 'application/json' },
+            { name: 'Authorization', value: 'Bearer {{token}}' },
+          ],
+          body: '{"itemId": "tea-101", "quantity": 1}',
+          assertions: [{ kind: 'status', in: [201] }],
+        },
+        {
+          name: 'Check out',
+          method: 'POST',
+          url: `${targetUrl}/api/checkout`,
+          headers: [{ name: 'Authorization', value: 'Bearer {{token}}' }],
+          assertions: [
+            { kind: 'status', in: [201] },
+            { kind: 'json', path: '$.status', op: 'eq', value: 'confirmed' },
+          ],
+        },
+      ],
+      schedule: { kind: 'interval', everySeconds: 30 },
+      vantages: [vantage],
+    },
+  ];
+}
+
+export async function seedDemo(db: Knex, opts: { targetUrl: string; vantage: string; secretKey: Buffer }): Promise<boolean> {
+  if (Number((await db('journeys').count({ n: '*' }).first())!.n) > 0) return false;
+  await db('vantages').insert({ name: opts.vantage, region: 'this machine' }).onConflict('name').ignore();
+  // The demo target lives on loopback, which probes may not reach by default.
+  const settings = probeSettingsService(db);
+  await settings.setTargetPolicy(SYSTEM, { ...(await settings.targetPolicy()), allowLoopback: true });
+  await secretsService(db, opts.secretKey).save(SYSTEM, 'QUILLMOOR_PASSWORD', DEMO_ACCOUNT.password);
+  const journeys = journeysService(db);
+  for (const doc of demoJourneys(opts.targetUrl, opts.vantage)) await journeys.create(SYSTEM, journeyDocumentSchema.parse(doc), []);
+  return true;
+}
