@@ -1,16 +1,23 @@
 // The API and web server process (started by scripts/start.ts, or on its own behind a balancer).
+import http from 'node:http';
 import path from 'node:path';
 import pg from 'pg';
 import { createApp } from './app';
 import { dataDir, dbSettings, httpPort, repoRoot } from './config';
 import { createKnex } from './db/knex';
 import { readOrCreateSecret } from './secrets-file';
+import { loadSecretKey } from './secrets/cipher';
+import { startBoss } from '../worker/boss';
 
 async function main() {
   const settings = dbSettings();
   const db = createKnex(settings, { max: 10 });
   const sessionPool = new pg.Pool({ ...settings, max: 4 });
+  // Send-only queue access ("try it now"); supervision is the workers' job.
+  const boss = await startBoss(settings, { supervise: false, schedule: false });
   const app = createApp({
+    secretKey: loadSecretKey(),
+    boss,
     db,
     sessionPool,
     sessionSecret: process.env.PARALLAX_SESSION_SECRET ?? readOrCreateSecret(dataDir(), 'session-secret'),
@@ -19,7 +26,9 @@ async function main() {
   });
   const host = process.env.PARALLAX_HOST ?? '127.0.0.1';
   const port = httpPort();
-  const server = app.listen(port, host, () => console.log(`[server] listening on http://${host}:${port}`));
+  const server = http.createServer(app);
+  server.once('listening', () => console.log(`[server] listening on http://${host}:${port}`));
+  server.listen(port, host);
   server.on('error', (e) => {
     console.error(`[server] cannot listen on ${host}:${port}: ${e.message}`);
     process.exit(1);
@@ -27,7 +36,7 @@ async function main() {
 
   const stop = () => {
     server.close(async () => {
-      await Promise.allSettled([db.destroy(), sessionPool.end()]);
+      await Promise.allSettled([db.destroy(), sessionPool.end(), boss.stop({ graceful: false })]);
       process.exit(0);
     });
     server.closeAllConnections();
