@@ -1,0 +1,5 @@
+import { SettingsHomeScreen } from '../../../components/settings/settings-home-screen';
+
+export default function SettingsRoute() {
+  return <SettingsHomeScreen />;
+}
