@@ -31,9 +31,13 @@ export function buildWeb(force = false): void {
   }
   console.log('[web] building the web app (expo export; about a minute on a cold cache)');
   const t0 = Date.now();
+  // Export beside the live build and swap it in at the end, so a server reading dist/ never sees
+  // a half-written build and two builds at once cannot mix their files.
+  const tmp = `${out}.build-${process.pid}`;
+  fs.rmSync(tmp, { recursive: true, force: true });
   const r = spawnSync(
     process.execPath,
-    [require.resolve('expo/bin/cli'), 'export', '--platform', 'web', '--output-dir', out],
+    [require.resolve('expo/bin/cli'), 'export', '--platform', 'web', '--output-dir', tmp],
     {
       cwd: root,
       stdio: ['ignore', 'pipe', 'pipe'],
@@ -44,11 +48,16 @@ export function buildWeb(force = false): void {
   );
   if (r.status !== 0) {
     process.stderr.write(r.stdout + r.stderr);
+    fs.rmSync(tmp, { recursive: true, force: true });
     throw new Error('[web] expo export failed');
   }
-  // Touch the index so the staleness check compares against this build's finish time.
-  const now = new Date();
-  fs.utimesSync(path.join(out, 'index.html'), now, now);
+  // Touch the index so the staleness check compares against this build's start time.
+  const started = new Date(t0);
+  fs.utimesSync(path.join(tmp, 'index.html'), started, started);
+  const old = `${out}.old-${process.pid}`;
+  if (fs.existsSync(out)) fs.renameSync(out, old);
+  fs.renameSync(tmp, out);
+  fs.rmSync(old, { recursive: true, force: true });
   console.log(`[web] built in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
 }
 

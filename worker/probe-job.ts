@@ -45,12 +45,29 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
   const queue = probeQueue(opts.vantage);
   const shutdown = new AbortController();
 
+  // A journey version never changes once saved, so it is read once per process.
+  const versions = new Map<string, Promise<JourneyDocument | null>>();
+  const documentOf = (id: number, version: number) => {
+    const k = `${id}:${version}`;
+    if (!versions.has(k)) {
+      if (versions.size > 5000) versions.clear();
+      versions.set(k, journeysRepo.byId(db, id, version).then((j) => j?.document ?? null));
+    }
+    return versions.get(k)!;
+  };
+  // Target rules are read at most every few seconds; an admin's change applies within that time.
+  let policy: { at: number; value: ReturnType<typeof settings.targetPolicy> } | null = null;
+  const targetPolicy = () => {
+    if (!policy || Date.now() - policy.at > 5000) policy = { at: Date.now(), value: settings.targetPolicy() };
+    return policy.value;
+  };
+
   async function execute(doc: JourneyDocument): Promise<RunResult> {
     const names = referencedSecretNames(doc.steps);
     return runJourney(doc, {
       vantage: opts.vantage,
-      secrets: await secrets.reveal(names),
-      targetPolicy: await settings.targetPolicy(),
+      secrets: names.length ? await secrets.reveal(names) : {},
+      targetPolicy: await targetPolicy(),
       signal: shutdown.signal,
       agent: opts.agent,
     });
@@ -66,10 +83,10 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
     if (lateness > lateAfterMs) {
       result = voidResult(opts.vantage, `started ${Math.round(lateness / 1000)} s after its slot (limit ${lateAfterMs / 1000} s)`, start);
     } else {
-      const j = await journeysRepo.byId(db, job.journeyId, job.version);
-      if (!j) return { stored: null }; // the journey was deleted since the slot was queued
+      const doc = await documentOf(job.journeyId, job.version);
+      if (!doc) return { stored: null }; // the journey was deleted since the slot was queued
       try {
-        result = await execute(j.document);
+        result = await execute(doc);
       } catch (e) {
         result = voidResult(opts.vantage, `runner error: ${(e as Error).message}`, start);
       }
@@ -78,16 +95,52 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
   }
 
   await boss.createQueue(queue, { name: queue, retryLimit: 2, retryDelay: 1, expireInSeconds: 60 } as PgBoss.Queue);
-  const workers: string[] = [];
-  for (let i = 0; i < (opts.concurrency ?? 4); i++) {
-    workers.push(
-      await boss.work(queue, { pollingIntervalSeconds: 0.5, batchSize: 1 }, async ([job]) => {
-        return handle(probeJobSchema.parse(job!.data));
-      }),
-    );
-  }
+
+  // Our own fetch loop rather than boss.work(): work() waits its polling interval after every
+  // batch, which caps a worker at a couple of jobs a second. Here up to `concurrency` runs are in
+  // flight, a freed place is refilled at once, and an idle queue is polled every 200 ms.
+  const concurrency = opts.concurrency ?? 8;
+  let inFlight = 0;
+  let stopped = false;
+  let wake: (() => void) | null = null;
+  const idle = (ms: number) => new Promise<void>((r) => { const t = setTimeout(r, ms); wake = () => { clearTimeout(t); r(); }; });
+  const settle = async (job: PgBoss.Job<unknown>) => {
+    try {
+      const out = await handle(probeJobSchema.parse(job.data));
+      await boss.complete(queue, job.id, out as object);
+    } catch (e) {
+      await boss.fail(queue, job.id, { message: (e as Error).message }).catch(() => {});
+    } finally {
+      inFlight--;
+      wake?.();
+    }
+  };
+  const loop = (async () => {
+    while (!stopped) {
+      const free = concurrency - inFlight;
+      if (free <= 0) {
+        await idle(1000);
+        continue;
+      }
+      let jobs: PgBoss.Job<unknown>[] = [];
+      try {
+        jobs = (await boss.fetch(queue, { batchSize: free })) ?? [];
+      } catch (e) {
+        console.error(`[prober] fetch failed: ${(e as Error).message}`);
+      }
+      for (const job of jobs) {
+        inFlight++;
+        void settle(job);
+      }
+      if (jobs.length === 0) await idle(200);
+    }
+  })();
+
   return async () => {
+    stopped = true;
     shutdown.abort();
-    await boss.offWork(queue);
+    wake?.();
+    await loop;
+    while (inFlight > 0) await new Promise((r) => setTimeout(r, 50));
   };
 }

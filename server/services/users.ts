@@ -40,6 +40,9 @@ export function usersService(db: Knex) {
         await tx.raw('SELECT pg_advisory_xact_lock(hashtext(?))', ['users.admins']);
         const before = await usersRepo.byId(tx, id);
         if (!before) throw new NotFoundError('Person');
+        if (actor.type === 'user' && actor.id === id && patch.disabled === true) {
+          throw new ValidationError('You cannot disable your own account; ask another admin', 'disabled');
+        }
         const losesAdmin =
           before.role === 'admin' && !before.disabled && ((patch.role && patch.role !== 'admin') || patch.disabled === true);
         if (losesAdmin && (await usersRepo.countActiveAdmins(tx)) <= 1) {

@@ -77,6 +77,13 @@ describe('people', () => {
     expect((await t.db.knex('users').where({ id: adminId }).first()).role).toBe('admin');
   });
 
+  it('refuses to let an admin disable their own account', async () => {
+    const res = await admin.agent.patch(`/api/users/${adminId}`).set('x-csrf-token', admin.csrf).send({ disabled: true });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('disabled');
+    expect((await t.db.knex('users').where({ id: adminId }).first()).disabled_at).toBeNull();
+  });
+
   it('names bad ids and empty patches', async () => {
     const a = await admin.agent.patch('/api/users/abc').set('x-csrf-token', admin.csrf).send({ role: 'reviewer' });
     expect(a.status).toBe(400);

@@ -1,0 +1,67 @@
+// A throwaway PostgreSQL cluster of its own (scripts/db.sh with a temporary data directory and
+// port), for the benchmark and for tests that stop and start the database (they must never stop
+// the shared test cluster other test files use).
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { dbSettings, repoRoot, type DbSettings } from '../../server/config';
+import { createKnex, migrateLatest } from '../../server/db/knex';
+
+export interface PrivateCluster {
+  dataDir: string;
+  port: number;
+  env: NodeJS.ProcessEnv;
+  settings(database: string): DbSettings;
+  start(): void;
+  stop(): void;
+  /** Creates a database and applies every migration. */
+  createMigratedDatabase(name: string): Promise<DbSettings>;
+  /** Stops the cluster and deletes its files. */
+  destroy(): void;
+}
+
+export function privateCluster(opts: { port: number; mode?: 'normal' | 'test'; label?: string }): PrivateCluster {
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), `parallax-${opts.label ?? 'private'}-`));
+  // The server runs as the postgres user when we are root: it must be able to enter the directory.
+  fs.chmodSync(dataDir, 0o755);
+  const env = { ...process.env, PARALLAX_DATA_DIR: dataDir, PARALLAX_DB_PORT: String(opts.port), PARALLAX_DB_MODE: opts.mode ?? 'normal' };
+  const script = path.join(repoRoot, 'scripts/db.sh');
+  const run = (cmd: string) => execFileSync('bash', [script, cmd], { env, stdio: ['ignore', 'ignore', 'pipe'] });
+  return {
+    dataDir,
+    port: opts.port,
+    env,
+    settings: (database) => dbSettings(env, database),
+    start: () => run('start'),
+    stop: () => run('stop'),
+    async createMigratedDatabase(name) {
+      const admin = createKnex(dbSettings(env, 'postgres'), { max: 1 });
+      try {
+        await admin.raw(`DROP DATABASE IF EXISTS ${name}`);
+        await admin.raw(`CREATE DATABASE ${name}`);
+      } finally {
+        await admin.destroy();
+      }
+      const db = createKnex(dbSettings(env, name), { max: 1 });
+      try {
+        await migrateLatest(db);
+      } finally {
+        await db.destroy();
+      }
+      return dbSettings(env, name);
+    },
+    destroy() {
+      try {
+        run('stop');
+      } catch {
+        // already stopped
+      }
+      // db.sh may have put the cluster elsewhere (see its pg-dir file).
+      const pgDirFile = path.join(dataDir, 'pg-dir');
+      const pgDir = fs.existsSync(pgDirFile) ? fs.readFileSync(pgDirFile, 'utf8').trim() : '';
+      if (pgDir && !pgDir.startsWith(dataDir) && pgDir.startsWith(os.tmpdir())) fs.rmSync(pgDir, { recursive: true, force: true });
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
