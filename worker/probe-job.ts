@@ -73,8 +73,33 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
     });
   }
 
-  async function handle(job: ProbeJob): Promise<RunResult | { stored: number | null }> {
-    if (job.kind === 'try') return execute(job.document as JourneyDocument);
+  // Finished runs are written in small batches (one transaction, two statements) and their jobs
+  // completed together: per-run round trips, not probing, were what limited a worker.
+  let pending: { item: Parameters<typeof runsRepo.insertManyOnce>[1][number]; jobId: string; done: (e?: Error) => void }[] = [];
+  let flushTimer: NodeJS.Timeout | null = null;
+  const flush = async () => {
+    flushTimer = null;
+    const batch = pending;
+    pending = [];
+    if (!batch.length) return;
+    try {
+      await runsRepo.insertManyOnce(db, batch.map((b) => b.item));
+      await boss.complete(queue, batch.map((b) => b.jobId));
+      for (const b of batch) b.done();
+    } catch (e) {
+      for (const b of batch) b.done(e as Error);
+    }
+  };
+  const store = (jobId: string, item: Parameters<typeof runsRepo.insertManyOnce>[1][number]) =>
+    new Promise<void>((resolve, reject) => {
+      pending.push({ item, jobId, done: (e) => (e ? reject(e) : resolve()) });
+      if (pending.length >= 32) void flush();
+      else flushTimer ??= setTimeout(() => void flush(), 20);
+    });
+
+  /** Runs one job; a scheduled run is handed to the batch writer, which also completes its job. */
+  async function handle(jobId: string, job: ProbeJob): Promise<{ output: object } | 'stored'> {
+    if (job.kind === 'try') return { output: await execute(job.document as JourneyDocument) };
     const slotAt = new Date(job.slotAt);
     const key = { journeyId: job.journeyId, version: job.version, vantage: job.vantage, slotAt };
     const start = now();
@@ -84,14 +109,15 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
       result = voidResult(opts.vantage, `started ${Math.round(lateness / 1000)} s after its slot (limit ${lateAfterMs / 1000} s)`, start);
     } else {
       const doc = await documentOf(job.journeyId, job.version);
-      if (!doc) return { stored: null }; // the journey was deleted since the slot was queued
+      if (!doc) return { output: { stored: null } }; // the journey was deleted since the slot was queued
       try {
         result = await execute(doc);
       } catch (e) {
         result = voidResult(opts.vantage, `runner error: ${(e as Error).message}`, start);
       }
     }
-    return { stored: await runsRepo.insertOnce(db, key, result, Math.max(0, lateness)) };
+    await store(jobId, { key, result, latenessMs: Math.max(0, lateness) });
+    return 'stored';
   }
 
   await boss.createQueue(queue, { name: queue, retryLimit: 2, retryDelay: 1, expireInSeconds: 60 } as PgBoss.Queue);
@@ -106,8 +132,8 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
   const idle = (ms: number) => new Promise<void>((r) => { const t = setTimeout(r, ms); wake = () => { clearTimeout(t); r(); }; });
   const settle = async (job: PgBoss.Job<unknown>) => {
     try {
-      const out = await handle(probeJobSchema.parse(job.data));
-      await boss.complete(queue, job.id, out as object);
+      const out = await handle(job.id, probeJobSchema.parse(job.data));
+      if (out !== 'stored') await boss.complete(queue, job.id, out.output);
     } catch (e) {
       await boss.fail(queue, job.id, { message: (e as Error).message }).catch(() => {});
     } finally {
@@ -142,5 +168,7 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
     wake?.();
     await loop;
     while (inFlight > 0) await new Promise((r) => setTimeout(r, 50));
+    if (flushTimer) clearTimeout(flushTimer);
+    await flush();
   };
 }

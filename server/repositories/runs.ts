@@ -48,53 +48,67 @@ export const runsRepo = {
    * slot (a retried job, a second scheduler) changes nothing and returns null.
    */
   async insertOnce(db: Knex, key: RunKey, result: RunResult, latenessMs: number | null, trigger: 'schedule' | 'missed' = 'schedule'): Promise<number | null> {
+    const [id] = await runsRepo.insertManyOnce(db, [{ key, result, latenessMs, trigger }]);
+    return id ?? null;
+  },
+
+  /** insertOnce for many runs in one transaction and two statements (the prober batches its writes). */
+  async insertManyOnce(
+    db: Knex,
+    items: { key: RunKey; result: RunResult; latenessMs: number | null; trigger?: 'schedule' | 'missed' }[],
+  ): Promise<(number | null)[]> {
+    if (!items.length) return [];
+    const times = items.map((i) => i.key.slotAt.getTime());
     return db.transaction(async (tx) => {
-      await runsRepo.ensurePartitions(tx, key.slotAt, key.slotAt);
-      const [row] = await tx('runs')
-        .insert({
-          journey_id: key.journeyId,
-          version: key.version,
-          vantage: key.vantage,
-          slot_at: key.slotAt,
-          trigger,
-          started_at: result.startedAt,
-          finished_at: result.finishedAt,
-          verdict: result.verdict,
-          failure_class: result.failureClass,
-          failed_step: result.failedStep,
-          void_reason: result.voidReason,
-          duration_ms: result.durationMs,
-          lateness_ms: latenessMs,
-        })
+      await runsRepo.ensurePartitions(tx, new Date(Math.min(...times)), new Date(Math.max(...times)));
+      const rows: { id: number; journey_id: number; vantage: string; slot_at: Date }[] = await tx('runs')
+        .insert(
+          items.map(({ key, result, latenessMs, trigger }) => ({
+            journey_id: key.journeyId,
+            version: key.version,
+            vantage: key.vantage,
+            slot_at: key.slotAt,
+            trigger: trigger ?? 'schedule',
+            started_at: result.startedAt,
+            finished_at: result.finishedAt,
+            verdict: result.verdict,
+            failure_class: result.failureClass,
+            failed_step: result.failedStep,
+            void_reason: result.voidReason,
+            duration_ms: result.durationMs,
+            lateness_ms: latenessMs,
+          })),
+        )
         .onConflict(['journey_id', 'vantage', 'slot_at'])
         .ignore()
-        .returning('id');
-      if (!row) return null;
-      const runId = (row as { id: number }).id;
-      if (result.steps.length) {
-        await tx('step_results').insert(
-          result.steps.map((s) => ({
-            run_id: runId,
-            slot_at: key.slotAt,
-            idx: s.index,
-            name: s.name,
-            method: s.method,
-            url: s.url,
-            passed: s.passed,
-            http_status: s.httpStatus,
-            timings: JSON.stringify(s.timings),
-            total_ms: s.timings.totalMs,
-            redirects: JSON.stringify(s.redirects),
-            trace_id: s.traceId,
-            assertions: JSON.stringify(s.assertions),
-            captures: JSON.stringify(s.captures),
-            failure_class: s.failureClass,
-            error: s.error,
-            response_excerpt: s.responseExcerpt,
-          })),
-        );
-      }
-      return runId;
+        .returning(['id', 'journey_id', 'vantage', 'slot_at']);
+      const idOf = new Map(rows.map((r) => [`${r.journey_id}|${r.vantage}|${r.slot_at.getTime()}`, r.id]));
+      const ids = items.map(({ key }) => idOf.get(`${key.journeyId}|${key.vantage}|${key.slotAt.getTime()}`) ?? null);
+      const steps = items.flatMap(({ key, result }, i) =>
+        ids[i] === null
+          ? []
+          : result.steps.map((s) => ({
+              run_id: ids[i],
+              slot_at: key.slotAt,
+              idx: s.index,
+              name: s.name,
+              method: s.method,
+              url: s.url,
+              passed: s.passed,
+              http_status: s.httpStatus,
+              timings: JSON.stringify(s.timings),
+              total_ms: s.timings.totalMs,
+              redirects: JSON.stringify(s.redirects),
+              trace_id: s.traceId,
+              assertions: JSON.stringify(s.assertions),
+              captures: JSON.stringify(s.captures),
+              failure_class: s.failureClass,
+              error: s.error,
+              response_excerpt: s.responseExcerpt,
+            })),
+      );
+      if (steps.length) await tx('step_results').insert(steps);
+      return ids;
     });
   },
 
