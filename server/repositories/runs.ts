@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { replaceSecrets } from '../../shared/journey/redact';
 import type { RunResult } from '../../shared/journey/run-result';
 import type { RunSummary } from '../../shared/schemas/journeys';
 
@@ -29,6 +30,21 @@ function toSummary(r: Record<string, any>): RunSummary {
 }
 
 const ensuredDays = new Set<string>();
+
+/**
+ * Captured values are often session tokens: only their names and lengths are kept, so the run
+ * history shows a capture happened without becoming a store of live credentials.
+ */
+export function maskCaptures(captures: Record<string, string>): Record<string, string> {
+  return Object.fromEntries(Object.entries(captures).map(([k, v]) => [k, `•••• (${v.length} characters)`]));
+}
+
+/** The same values are hidden where a later step's response or URL repeats them. */
+function hideCaptured(text: string | null, captured: Record<string, string>): string | null {
+  if (text === null) return null;
+  const worth = Object.fromEntries(Object.entries(captured).filter(([, v]) => v.length >= 6));
+  return replaceSecrets(text, worth, (name) => `[captured:${name}]`);
+}
 
 export const runsRepo = {
   /** Daily partitions for [from, to]; remembered per database so the hot path skips the DDL. */
@@ -84,16 +100,16 @@ export const runsRepo = {
         .returning(['id', 'journey_id', 'vantage', 'slot_at']);
       const idOf = new Map(rows.map((r) => [`${r.journey_id}|${r.vantage}|${r.slot_at.getTime()}`, r.id]));
       const ids = items.map(({ key }) => idOf.get(`${key.journeyId}|${key.vantage}|${key.slotAt.getTime()}`) ?? null);
-      const steps = items.flatMap(({ key, result }, i) =>
-        ids[i] === null
-          ? []
-          : result.steps.map((s) => ({
+      const steps = items.flatMap(({ key, result }, i) => {
+        if (ids[i] === null) return [];
+        const captured = Object.assign({}, ...result.steps.map((s) => s.captures)) as Record<string, string>;
+        return result.steps.map((s) => ({
               run_id: ids[i],
               slot_at: key.slotAt,
               idx: s.index,
               name: s.name,
               method: s.method,
-              url: s.url,
+              url: hideCaptured(s.url, captured)!,
               passed: s.passed,
               http_status: s.httpStatus,
               timings: JSON.stringify(s.timings),
@@ -101,12 +117,12 @@ export const runsRepo = {
               redirects: JSON.stringify(s.redirects),
               trace_id: s.traceId,
               assertions: JSON.stringify(s.assertions),
-              captures: JSON.stringify(s.captures),
+              captures: JSON.stringify(maskCaptures(s.captures)),
               failure_class: s.failureClass,
-              error: s.error,
-              response_excerpt: s.responseExcerpt,
-            })),
-      );
+              error: hideCaptured(s.error, captured),
+              response_excerpt: hideCaptured(s.responseExcerpt, captured),
+            }));
+      });
       if (steps.length) await tx('step_results').insert(steps);
       return ids;
     });
