@@ -4,7 +4,9 @@ import type { Express } from 'express';
 import type pg from 'pg';
 import request from 'supertest';
 import type { Role } from '../../shared/roles';
+import type PgBoss from 'pg-boss';
 import { createApp, type AppDeps } from '../../server/app';
+import { startBoss } from '../../worker/boss';
 import { hashPassword } from '../../server/auth/passwords';
 import { usersRepo } from '../../server/repositories/users';
 import { createTestDb, pgPool, type TestDb } from './db';
@@ -13,24 +15,32 @@ export interface TestApp {
   app: Express;
   db: TestDb;
   pool: pg.Pool;
+  /** With { withQueue: true }: the app's pg-boss (send side), also usable by the test's workers. */
+  boss?: PgBoss;
   close(): Promise<void>;
 }
 
-export async function buildTestApp(overrides: Partial<AppDeps> = {}): Promise<TestApp> {
+export async function buildTestApp(overrides: Partial<AppDeps> & { withQueue?: boolean } = {}): Promise<TestApp> {
+  const { withQueue, ...deps } = overrides;
   const db = await createTestDb();
   const pool = pgPool(db.settings);
+  const boss = withQueue ? await startBoss(db.settings) : undefined;
   const app = createApp({
+    boss,
     db: db.knex,
     sessionPool: pool,
     sessionSecret: crypto.randomBytes(32).toString('hex'),
+    secretKey: crypto.randomBytes(32),
     log: () => {},
-    ...overrides,
+    ...deps,
   });
   return {
     app,
     db,
     pool,
+    boss,
     async close() {
+      await boss?.stop({ graceful: false, wait: true });
       await pool.end();
       await db.drop();
     },
