@@ -85,6 +85,8 @@ export interface DemoTargetOptions {
   host?: string;
   /** Random source for the error rate (tests pass a fixed one). */
   random?: () => number;
+  /** Called after every shop request (the demo's OpenTelemetry instruments listen here). */
+  onRequest?: (route: string, status: number, ms: number) => void;
 }
 
 class HttpError extends Error {
@@ -171,6 +173,7 @@ export async function startDemoTarget(options: DemoTargetOptions = {}): Promise<
     r.latency.bucketCounts[bucket === -1 ? LATENCY_BOUNDS_MS.length : bucket]++;
     r.latency.sumMs += ms;
     r.latency.count++;
+    options.onRequest?.(route, status, ms);
   }
 
   function sessionOf(req: IncomingMessage) {

@@ -5,7 +5,10 @@ import type { JourneyDocumentInput } from '../shared/journey/journey-schema';
 import { journeyDocumentSchema } from '../shared/journey/journey-schema';
 import { journeysService } from '../server/services/journeys';
 import { probeSettingsService } from '../server/services/probe-settings';
+import fs from 'node:fs';
+import path from 'node:path';
 import { secretsService } from '../server/services/secrets';
+import { tokensService } from '../server/services/tokens';
 import { DEMO_ACCOUNT } from './demo-target';
 
 const SYSTEM = { type: 'token' as const, id: 0, name: 'demo-seed', scopes: [] };
@@ -79,4 +82,21 @@ export async function seedDemo(db: Knex, opts: { targetUrl: string; vantage: str
   const journeys = journeysService(db);
   for (const doc of demoJourneys(opts.targetUrl, opts.vantage)) await journeys.create(SYSTEM, journeyDocumentSchema.parse(doc), []);
   return true;
+}
+
+/**
+ * The demo shop needs an ingest token to send its metrics. Tokens are stored hashed, so the
+ * secret is kept in the data directory (private, like the database password) and re-made if it
+ * was revoked.
+ */
+export async function demoIngestToken(db: Knex, dataDir: string): Promise<string> {
+  const file = path.join(dataDir, 'demo-ingest-token');
+  const tokens = tokensService(db);
+  if (fs.existsSync(file)) {
+    const secret = fs.readFileSync(file, 'utf8').trim();
+    if (await tokens.authenticate(secret)) return secret;
+  }
+  const created = await tokens.create(SYSTEM, { name: 'Demo shop metrics', scopes: ['ingest'] });
+  fs.writeFileSync(file, created.secret + '\n', { mode: 0o600 });
+  return created.secret;
 }

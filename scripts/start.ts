@@ -8,7 +8,7 @@ import { dataDir, dbPort, dbSettings, httpPort } from '../server/config';
 import { createKnex } from '../server/db/knex';
 import { usersService } from '../server/services/users';
 import { loadSecretKey } from '../server/secrets/cipher';
-import { seedDemo } from './seed-demo';
+import { demoIngestToken, seedDemo } from './seed-demo';
 import { buildWeb } from './build-web';
 import { migrate } from './migrate';
 
@@ -82,6 +82,7 @@ async function main() {
   const knex = createKnex(dbSettings(env), { max: 2 });
   let firstRun: { email: string; password: string } | null = null;
   let seeded = false;
+  let ingestToken = '';
   try {
     firstRun = await usersService(knex).bootstrapAdmin({
       email: process.env.PARALLAX_ADMIN_EMAIL,
@@ -89,6 +90,7 @@ async function main() {
     });
     if (process.env.PARALLAX_DEMO !== '0') {
       seeded = await seedDemo(knex, { targetUrl: `http://127.0.0.1:${demoPort}`, vantage, secretKey: loadSecretKey(env) });
+      ingestToken = await demoIngestToken(knex, dataDir());
     }
   } finally {
     await knex.destroy();
@@ -97,7 +99,13 @@ async function main() {
   buildWeb(false);
 
   run('mail sink', 'scripts/smtp-sink.ts', { PARALLAX_SMTP_PORT: String(smtpPort) });
-  if (process.env.PARALLAX_DEMO !== '0') run('demo target', 'scripts/demo-target.ts', { DEMO_TARGET_PORT: String(demoPort) });
+  if (process.env.PARALLAX_DEMO !== '0') {
+    run('demo shop', 'scripts/demo.ts', {
+      DEMO_TARGET_PORT: String(demoPort),
+      PARALLAX_DEMO_OTLP_URL: `http://127.0.0.1:${httpPort()}/v1/metrics`,
+      PARALLAX_DEMO_INGEST_TOKEN: ingestToken,
+    });
+  }
   run('server', 'server/main.ts', { PARALLAX_SMTP_PORT: String(smtpPort) });
   run('worker', 'worker/main.ts', { PARALLAX_VANTAGE: vantage, PARALLAX_SMTP_PORT: String(smtpPort) });
 
