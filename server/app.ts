@@ -9,8 +9,19 @@ import session from 'express-session';
 import helmet from 'helmet';
 import type { Knex } from 'knex';
 import type pg from 'pg';
+import type PgBoss from 'pg-boss';
 import { authRoutes, configurePassport } from './routes/auth';
+import { journeysRoutes, runsRoutes } from './routes/journeys';
+import { probeAdminRoutes } from './routes/probe-admin';
+import { alertsRoutes } from './rules/alerts-routes';
+import { channelsRoutes } from './rules/channels-routes';
+import { maintenanceWindowsRoutes } from './rules/maintenance-routes';
+import { outgoingMailRoutes } from './rules/outgoing-mail-routes';
+import { rulesRoutes } from './rules/rules-routes';
 import { errorHandler, notFoundApi } from './http/error-handler';
+import { otlpMetricsRoutes } from './ingest/otlp-routes';
+import { servicesRoutes } from './signals/services-routes';
+import { signalsRoutes } from './signals/signals-routes';
 import { systemRoutes } from './routes/system';
 import { tokensRoutes } from './routes/tokens';
 import { usersRoutes } from './routes/users';
@@ -29,6 +40,10 @@ export interface AppDeps {
   log?: (msg: string, err?: unknown) => void;
   /** Number of proxies in front (for req.ip and secure cookies behind TLS termination). */
   trustProxy?: number | boolean;
+  /** AES-256-GCM key for secrets (server/secrets/cipher.ts). */
+  secretKey: Buffer;
+  /** Queue access (send only) for "try it now". */
+  boss?: PgBoss;
 }
 
 export function createApp(deps: AppDeps): Express {
@@ -54,6 +69,8 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use(compression());
+  // OTLP/HTTP intake: token-only (no session, no CSRF), its own body reader with a 20 MiB limit.
+  app.use('/v1/metrics', otlpMetricsRoutes(deps.db, { log }));
 
   const PgStore = connectPgSimple(session);
   app.use(
@@ -105,6 +122,16 @@ export function createApp(deps: AppDeps): Express {
   api.use('/auth', authRoutes({ authenticator, generateCsrfToken: generateToken, signInLimit: deps.signInLimit ?? { windowMs: 15 * 60_000, max: 10 } }));
   api.use('/users', usersRoutes(deps.db));
   api.use('/tokens', tokensRoutes(deps.db));
+  api.use('/services', servicesRoutes(deps.db));
+  api.use('/signals', signalsRoutes(deps.db, now));
+  api.use('/journeys', journeysRoutes({ db: deps.db, secretKey: deps.secretKey, boss: deps.boss, now }));
+  api.use('/runs', runsRoutes(deps.db));
+  api.use('/rules', rulesRoutes(deps.db, now));
+  api.use('/alerts', alertsRoutes(deps.db, now));
+  api.use('/maintenance-windows', maintenanceWindowsRoutes(deps.db, now));
+  api.use('/outgoing-mail', outgoingMailRoutes());
+  api.use('/channels', channelsRoutes(deps.db, deps.secretKey));
+  api.use('/', probeAdminRoutes(deps.db, deps.secretKey, now));
   api.use('/', systemRoutes(deps.db, now));
   api.use(notFoundApi);
   app.use('/api', api);

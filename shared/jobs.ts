@@ -36,3 +36,16 @@ export type TryProbeJob = z.infer<typeof tryProbeJobSchema>;
 
 export const probeJobSchema = z.discriminatedUnion('kind', [scheduledProbeJobSchema, tryProbeJobSchema]);
 export type ProbeJob = z.infer<typeof probeJobSchema>;
+
+/** Internal signals (issue 4): collection from JSON endpoints, and partition upkeep/retention/rollups. */
+export const SIGNAL_JOBS = {
+  collect: 'signals.collect',
+  maintain: 'signals.maintain',
+} as const;
+
+export const collectJobSchema = z.object({
+  targetId: z.number().int().positive(),
+  /** The claimed slot (ms epoch): the samples' time, so a retried job writes the same points. */
+  slotMs: z.number().int().nonnegative(),
+});
+export type CollectJob = z.infer<typeof collectJobSchema>;

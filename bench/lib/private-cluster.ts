@@ -3,6 +3,7 @@
 // the shared test cluster other test files use).
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
+import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { dbSettings, repoRoot, type DbSettings } from '../../server/config';
@@ -19,6 +20,21 @@ export interface PrivateCluster {
   createMigratedDatabase(name: string): Promise<DbSettings>;
   /** Stops the cluster and deletes its files. */
   destroy(): void;
+}
+
+/**
+ * A TCP port nobody listens on right now, so two runs at once (two people's suites on one
+ * machine) do not start, stop or share each other's clusters.
+ */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
 }
 
 export function privateCluster(opts: { port: number; mode?: 'normal' | 'test'; label?: string }): PrivateCluster {
