@@ -23,8 +23,8 @@ export interface CollectOutcome {
   error: string | null;
 }
 
-async function fetchJson(url: string, opts: CollectOptions): Promise<unknown> {
-  await assertCollectable(url);
+async function fetchJson(db: Knex, url: string, opts: CollectOptions): Promise<unknown> {
+  await assertCollectable(db, url);
   const timeout = opts.timeoutMs ?? 10_000;
   const res = await request(url, {
     method: 'GET',
@@ -76,7 +76,7 @@ export async function collectTarget(db: Knex, target: CollectionTargetView, slot
   const now = opts.now ?? (() => new Date());
   let outcome: CollectOutcome;
   try {
-    const doc = await fetchJson(target.url, opts);
+    const doc = await fetchJson(db, target.url, opts);
     const points = documentToPoints(target, doc, slotMs);
     const written = points.length ? await ingestService(db).write(points) : { accepted: 0, duplicates: 0, rejected: [] };
     outcome = {

@@ -18,6 +18,8 @@ let doc: unknown = {};
 
 beforeAll(async () => {
   t = await buildTestApp();
+  // Collection obeys the target rules; the endpoints here live on loopback, which they must allow.
+  await t.db.knex('settings').insert({ key: 'target_policy', value: JSON.stringify({ allowLoopback: true }) });
   engineer = await signIn(t, (await addPerson(t, 'engineer')).email);
   reviewer = await signIn(t, (await addPerson(t, 'reviewer')).email);
   server = http.createServer((req, res) => {
@@ -107,6 +109,11 @@ describe('collector', () => {
     const meta = await create(engineer, { name: 'metadata', service: 'legacy', url: 'http://169.254.169.254/latest/meta-data/', intervalSeconds: 30 });
     const m = (await collectionTargetsRepo.byId(t.db.knex, meta.body.id))!;
     expect((await collectTarget(t.db.knex, m, Date.now())).error).toMatch(/link-local/);
+    // Without the admin's loopback allowance, a loopback endpoint is refused like a probe would be.
+    await t.db.knex('settings').where({ key: 'target_policy' }).update({ value: JSON.stringify({ allowLoopback: false }) });
+    const loopback = (await collectTarget(t.db.knex, target, Date.now())).error;
+    expect(loopback).toMatch(/refused: 127\.0\.0\.1 .*loopback/);
+    await t.db.knex('settings').where({ key: 'target_policy' }).update({ value: JSON.stringify({ allowLoopback: true }) });
   });
 
   it('runs due targets through pg-boss, each slot claimed once', async () => {
