@@ -1,42 +1,27 @@
-// A throwaway private PostgreSQL cluster for a benchmark run (its own data directory and port),
-// migrated, and removed afterwards.
-import { execFileSync } from 'node:child_process';
-import fs from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
+// A migrated database on a throwaway private cluster (bench/lib/private-cluster.ts), for benchmarks.
 import type { Knex } from 'knex';
-import { dbSettings, type DbSettings } from '../../server/config';
-import { createKnex, migrateLatest } from '../../server/db/knex';
-import { ensureDatabase } from '../../scripts/migrate';
-
-const root = path.resolve(__dirname, '../..');
+import type { DbSettings } from '../../server/config';
+import { createKnex } from '../../server/db/knex';
+import { freePort, privateCluster } from './private-cluster';
 
 export interface PrivateDb {
   settings: DbSettings;
   knex: Knex;
-  env: NodeJS.ProcessEnv;
   close(): Promise<void>;
 }
 
-export async function startPrivateDb(port: number): Promise<PrivateDb> {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'px-bench-'));
-  fs.chmodSync(dir, 0o755);
-  const env = { ...process.env, PARALLAX_DATA_DIR: dir, PARALLAX_DB_PORT: String(port), PARALLAX_DB_MODE: 'normal', PARALLAX_DB_NAME: 'bench' };
-  execFileSync('bash', [path.join(root, 'scripts/db.sh'), 'start'], { env, stdio: ['ignore', 'ignore', 'inherit'] });
-  await ensureDatabase(env);
-  const settings = dbSettings(env);
+/** `port` 0 (or none) picks a free one, so two benchmarks at once never share a cluster. */
+export async function startPrivateDb(port = 0): Promise<PrivateDb> {
+  const cluster = privateCluster({ port: port || (await freePort()), label: 'bench' });
+  cluster.start();
+  const settings = await cluster.createMigratedDatabase('bench');
   const knex = createKnex(settings, { max: 20 });
-  await migrateLatest(knex);
   return {
     settings,
     knex,
-    env,
     async close() {
       await knex.destroy();
-      execFileSync('bash', [path.join(root, 'scripts/db.sh'), 'stop'], { env, stdio: ['ignore', 'ignore', 'inherit'] });
-      fs.rmSync(dir, { recursive: true, force: true });
-      const pgdir = fs.existsSync(path.join(dir, 'pg-dir')) ? fs.readFileSync(path.join(dir, 'pg-dir'), 'utf8').trim() : null;
-      if (pgdir && pgdir.startsWith('/tmp/')) fs.rmSync(pgdir, { recursive: true, force: true });
+      cluster.destroy();
     },
   };
 }
