@@ -49,3 +49,17 @@ export const collectJobSchema = z.object({
   slotMs: z.number().int().nonnegative(),
 });
 export type CollectJob = z.infer<typeof collectJobSchema>;
+
+/**
+ * Alert notifications (issue 5): one job per outbox row, queued in the same transaction as the
+ * alert's state change; the notifier delivers the row by mail or webhook, at most once.
+ */
+export const RULE_JOBS = {
+  notifyMail: 'rules.notify-mail',
+  notifyWebhook: 'rules.notify-webhook',
+} as const;
+
+export const notifyJobSchema = z.object({
+  outboxId: z.number().int().positive(),
+});
+export type NotifyJob = z.infer<typeof notifyJobSchema>;

@@ -6,6 +6,8 @@ import { createKnex } from '../server/db/knex';
 import { loadSecretKey } from '../server/secrets/cipher';
 import { startBoss } from './boss';
 import { startCollector } from './collector/collector';
+import { startEvaluator } from './evaluator/evaluator';
+import { startNotifier } from './notifier/notifier';
 import { startHeartbeat } from './heartbeat';
 import { startProber } from './probe-job';
 import { startRetention } from './retention';
@@ -30,11 +32,16 @@ async function main() {
   await startRetention(boss, db);
   // JSON endpoint collection, plus signal partitions ahead, rollups and raw-sample retention.
   const stopCollector = await startCollector(boss, db);
+  // Alert rules: one leader evaluates every cycle; the notifier sends mail and webhooks from the outbox.
+  const evaluator = await startEvaluator(boss, db);
+  const notifier = await startNotifier(boss, db, { secretKey: loadSecretKey() });
   console.log(`[worker] vantage ${vantage} started`);
 
   const stop = async () => {
     await scheduler.stop().catch(() => {});
     await stopCollector().catch(() => {});
+    await evaluator.stop().catch(() => {});
+    await notifier.stop().catch(() => {});
     await stopProber().catch(() => {});
     await stopBeat().catch(() => {});
     await boss.stop({ graceful: true, timeout: 5000 }).catch(() => {});
