@@ -9,6 +9,13 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { secretsService } from '../server/services/secrets';
 import { tokensService } from '../server/services/tokens';
+import { z } from 'zod';
+import { ruleDocumentSchema } from '../shared/rules/rule-schema';
+
+type RuleDocumentInput = z.input<typeof ruleDocumentSchema>;
+import { settingsRepo } from '../server/repositories/settings';
+import { rulesService } from '../server/rules/rules-service';
+import { DEMO_SERVICE } from './demo-metrics';
 import { DEMO_ACCOUNT } from './demo-target';
 
 const SYSTEM = { type: 'token' as const, id: 0, name: 'demo-seed', scopes: [] };
@@ -99,4 +106,56 @@ export async function demoIngestToken(db: Knex, dataDir: string): Promise<string
   const created = await tokens.create(SYSTEM, { name: 'Demo shop metrics', scopes: ['ingest'] });
   fs.writeFileSync(file, created.secret + '\n', { mode: 0o600 });
   return created.secret;
+}
+
+/** Alert rules on the demo shop's own metrics; they can only be made once those signals exist. */
+export function demoRules(): RuleDocumentInput[] {
+  const common = {
+    service: DEMO_SERVICE,
+    groupBy: [],
+    severity: 'page' as const,
+    recipients: ['oncall@quillmoor.example'],
+    runbookUrl: null,
+  };
+  return [
+    {
+      ...common,
+      kind: 'error_ratio',
+      name: 'Shop errors above 10 %',
+      signal: 'http.server.errors',
+      requestsSignal: 'http.server.requests',
+      window: '2m',
+      sustain: '30s',
+      clear: '1m',
+      op: '>',
+      threshold: 0.1,
+      responderNote:
+        'Check the shop’s error switch and its most recent release first; if errors are confined to one route, look at that route’s dependency.',
+    },
+    {
+      ...common,
+      kind: 'latency_quantile',
+      name: 'Shop p95 latency above 500 ms',
+      signal: 'http.server.duration',
+      window: '2m',
+      sustain: '30s',
+      clear: '1m',
+      quantile: 0.95,
+      op: '>',
+      threshold: 500,
+      severity: 'ticket',
+      responderNote: 'Look for added latency on the shop (the demo switch addedLatencyMs) and for slow database calls behind search.',
+    },
+  ];
+}
+
+/** Creates the demo rules once, when the shop's signals have arrived; true when done (or not needed). */
+export async function seedDemoRules(db: Knex): Promise<boolean> {
+  if (await settingsRepo.get(db, 'demo_rules_seeded')) return true;
+  const have = await db('signals as s').join('services as v', 'v.id', 's.service_id').where('v.name', DEMO_SERVICE).pluck('s.name');
+  if (!['http.server.errors', 'http.server.requests', 'http.server.duration'].every((n) => have.includes(n))) return false;
+  const rules = rulesService(db);
+  for (const doc of demoRules()) await rules.create(SYSTEM, ruleDocumentSchema.parse(doc));
+  await settingsRepo.put(db, 'demo_rules_seeded', true);
+  return true;
 }

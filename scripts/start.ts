@@ -8,7 +8,7 @@ import { dataDir, dbPort, dbSettings, httpPort } from '../server/config';
 import { createKnex } from '../server/db/knex';
 import { usersService } from '../server/services/users';
 import { loadSecretKey } from '../server/secrets/cipher';
-import { demoIngestToken, seedDemo } from './seed-demo';
+import { demoIngestToken, seedDemo, seedDemoRules } from './seed-demo';
 import { buildWeb } from './build-web';
 import { migrate } from './migrate';
 
@@ -129,6 +129,22 @@ async function main() {
   }
   lines.push('', '  Press Ctrl-C to stop.', '');
   console.log(lines.join('\n'));
+  if (process.env.PARALLAX_DEMO !== '0') void seedRulesWhenSignalsArrive();
+}
+
+/** The demo's alert rules need the shop's signals, which arrive with its first metrics export. */
+async function seedRulesWhenSignalsArrive() {
+  const knex = createKnex(dbSettings(env), { max: 1 });
+  try {
+    for (let i = 0; i < 60 && !stopping; i++) {
+      if (await seedDemoRules(knex)) return;
+      await new Promise((r) => setTimeout(r, 5000));
+    }
+  } catch (e) {
+    console.error(`[start] demo alert rules not added: ${(e as Error).message}`);
+  } finally {
+    await knex.destroy();
+  }
 }
 
 main().catch(async (e: Error) => {

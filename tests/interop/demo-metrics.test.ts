@@ -3,7 +3,7 @@
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { demoIngestToken } from '../../scripts/seed-demo';
+import { demoIngestToken, seedDemoRules } from '../../scripts/seed-demo';
 import { DEMO_SERVICE, startDemoMetrics, type DemoMetrics } from '../../scripts/demo-metrics';
 import { startDemoTarget, type DemoTarget } from '../../scripts/demo-target';
 import fs from 'node:fs';
@@ -54,5 +54,18 @@ describe('demo shop metrics', () => {
     expect(total('http.server.requests')).toBe(10);
     expect(total('http.server.requests', (l) => l.status_class === '5xx')).toBe(4);
     expect(total('http.server.errors')).toBe(4);
+
+    // With the shop's signals present, the demo's alert rules can be made, once.
+    expect(await seedDemoRules(t.db.knex)).toBe(true);
+    expect(await seedDemoRules(t.db.knex)).toBe(true);
+    const rules = await viewer.agent.get('/api/rules').expect(200);
+    const names = (rules.body.items as { name: string }[]).map((r) => r.name).sort();
+    expect(names).toEqual(['Shop errors above 10 %', 'Shop p95 latency above 500 ms']);
+  });
+
+  it('has no demo rules to make before the signals exist', async () => {
+    await t.db.knex('settings').where({ key: 'demo_rules_seeded' }).delete();
+    await t.db.knex('signals').where({ name: 'http.server.duration' }).update({ name: 'renamed.for.test' });
+    expect(await seedDemoRules(t.db.knex)).toBe(false);
   });
 });
