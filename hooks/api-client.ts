@@ -103,14 +103,16 @@ async function fetchCsrfToken(): Promise<void> {
 
 async function send(method: Method, path: string, body: unknown): Promise<Response> {
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (body !== undefined) headers['content-type'] = 'application/json';
+  // A form (file upload) sets its own multipart content type with the boundary.
+  const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
+  if (body !== undefined && !isForm) headers['content-type'] = 'application/json';
   if (method !== 'GET' && csrfToken) headers['x-csrf-token'] = csrfToken;
   try {
     return await fetch(path, {
       method,
       headers,
       credentials: 'include',
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
     });
   } catch {
     throw new ApiError(0, 'network', 'Could not reach the Parallax server');
@@ -142,5 +144,8 @@ export const api = {
   get: <T>(path: string) => request<T>('GET', path),
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, body ?? {}),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, body),
+  put: <T>(path: string, body: unknown) => request<T>('PUT', path, body),
+  /** multipart/form-data, for file uploads. */
+  upload: <T>(path: string, form: FormData) => request<T>('POST', path, form),
   delete: <T = void>(path: string) => request<T>('DELETE', path),
 };

@@ -4,6 +4,8 @@ import { useWindowDimensions } from 'react-native';
 export const BREAKPOINTS = {
   tablet: 768,
   wide: 1024,
+  /** Wide with room to spare: a side column or a second pane beside full-width content. */
+  roomy: 1280,
 } as const;
 
 export type Breakpoint = 'phone' | 'tablet' | 'wide';
@@ -17,6 +19,8 @@ export interface Breakpoints {
   isWide: boolean;
   /** Tablet or wide: enough room for tables and side-by-side fields. */
   atLeastTablet: boolean;
+  /** At least BREAKPOINTS.roomy: wide, with room for a side column as well. */
+  isRoomy: boolean;
 }
 
 export function breakpointFor(width: number): Breakpoint {
@@ -36,5 +40,6 @@ export function useBreakpoints(): Breakpoints {
     isTablet: breakpoint === 'tablet',
     isWide: breakpoint === 'wide',
     atLeastTablet: breakpoint !== 'phone',
+    isRoomy: width >= BREAKPOINTS.roomy,
   };
 }

@@ -12,3 +12,8 @@ export const ROLE_ABILITIES: Record<Role, string> = {
   release_manager: 'Records releases and runs release watches; reads everything else.',
   reviewer: 'Reads everything; triages episodes and exports reports.',
 };
+
+/** Engineers and admins write journeys (and import HAR files); everyone else reads them. */
+export function canWriteJourneys(user: SessionUser | null | undefined): boolean {
+  return user?.role === 'admin' || user?.role === 'engineer';
+}

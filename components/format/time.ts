@@ -46,3 +46,18 @@ export function formatTime(iso: string): string {
   const at = Date.parse(iso);
   return Number.isNaN(at) ? 'unknown' : timeOnly.format(at);
 }
+
+const dateTimeSeconds = new Intl.DateTimeFormat(undefined, {
+  weekday: 'short',
+  month: 'short',
+  day: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+  second: '2-digit',
+});
+
+/** "Tue, Dec 2, 14:05:07": slots fall on exact seconds, so the seconds matter. */
+export function formatSlot(iso: string): string {
+  const at = Date.parse(iso);
+  return Number.isNaN(at) ? 'unknown' : dateTimeSeconds.format(at);
+}

@@ -7,7 +7,19 @@ import { Text } from '../ui/text';
 export interface TextFieldProps
   extends Pick<
     TextInputProps,
-    'value' | 'onChangeText' | 'secureTextEntry' | 'autoComplete' | 'keyboardType' | 'autoCapitalize' | 'onSubmitEditing' | 'returnKeyType' | 'placeholder' | 'textContentType'
+    | 'value'
+    | 'onChangeText'
+    | 'secureTextEntry'
+    | 'autoComplete'
+    | 'keyboardType'
+    | 'autoCapitalize'
+    | 'onSubmitEditing'
+    | 'returnKeyType'
+    | 'placeholder'
+    | 'textContentType'
+    | 'multiline'
+    | 'numberOfLines'
+    | 'editable'
   > {
   label: string;
   hint?: string;
@@ -50,6 +62,7 @@ export const TextField = forwardRef<TextInput, TextFieldProps>(function TextFiel
             paddingVertical: theme.space.sm,
             outlineWidth: 0,
           },
+          input.multiline ? { minHeight: theme.sizes.touchTarget * 2, textAlignVertical: 'top' } : null,
         ]}
         {...input}
       />

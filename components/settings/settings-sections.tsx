@@ -1,6 +1,7 @@
 import { Link, usePathname, type Href } from 'expo-router';
 import { Pressable, View } from 'react-native';
 import { useSessionUser } from '../../hooks/queries/session';
+import type { Role } from '../../shared/roles';
 import { isAdmin } from '../auth/roles';
 import { useTheme } from '../theme';
 import { Icon, type IconName } from '../ui/icon';
@@ -13,6 +14,8 @@ interface Section {
   detail: string;
   icon: IconName;
   adminOnly: boolean;
+  /** When set, only these roles see it (instead of adminOnly). */
+  roles?: readonly Role[];
   testID: string;
 }
 
@@ -20,6 +23,12 @@ const SECTIONS: readonly Section[] = [
   { href: '/settings', path: '/settings', title: 'Your account', detail: 'Name, email and role', icon: 'user', adminOnly: false, testID: 'settings-link-account' },
   { href: '/settings/people', path: '/settings/people', title: 'People', detail: 'Who can sign in, and their roles', icon: 'users', adminOnly: true, testID: 'settings-link-people' },
   { href: '/settings/tokens', path: '/settings/tokens', title: 'Access tokens', detail: 'Keys for pipelines and services', icon: 'key', adminOnly: true, testID: 'settings-link-tokens' },
+  { href: '/settings/secrets', path: '/settings/secrets', title: 'Secrets', detail: 'Passwords and tokens journeys use', icon: 'lock', adminOnly: true, testID: 'settings-link-secrets' },
+  { href: '/settings/vantages', path: '/settings/vantages', title: 'Vantages', detail: 'Where journeys run from, and whether they are up', icon: 'globe', adminOnly: false, testID: 'settings-link-vantages' },
+  { href: '/settings/target-rules', path: '/settings/target-rules', title: 'Target rules', detail: 'Where probes may connect; run retention', icon: 'shield', adminOnly: true, testID: 'settings-link-target-rules' },
+  { href: '/settings/collection-targets', path: '/settings/collection-targets', title: 'Collection targets', detail: 'JSON endpoints whose numbers are collected as signals', icon: 'download-cloud', adminOnly: false, roles: ['admin', 'engineer'], testID: 'settings-link-collection-targets' },
+  { href: '/settings/maintenance-windows', path: '/settings/maintenance-windows', title: 'Maintenance windows', detail: 'Planned periods when alerts are recorded but not sent', icon: 'tool', adminOnly: false, testID: 'settings-link-maintenance-windows' },
+  { href: '/settings/outgoing-mail', path: '/settings/outgoing-mail', title: 'Outgoing mail', detail: 'Messages the local mail sink received', icon: 'mail', adminOnly: true, testID: 'settings-link-outgoing-mail' },
 ];
 
 /**
@@ -30,8 +39,9 @@ export function SettingsSections({ pane }: { pane: boolean }) {
   const theme = useTheme();
   const c = theme.colors;
   const pathname = usePathname();
-  const admin = isAdmin(useSessionUser());
-  const visible = SECTIONS.filter((section) => admin || !section.adminOnly).filter((section) => pane || section.path !== '/settings');
+  const user = useSessionUser();
+  const admin = isAdmin(user);
+  const visible = SECTIONS.filter((section) => (section.roles ? !!user && section.roles.includes(user.role) : admin || !section.adminOnly)).filter((section) => pane || section.path !== '/settings');
   return (
     <View style={{ gap: theme.space.lg }}>
       <View style={{ gap: theme.space.xs }}>
@@ -76,8 +86,8 @@ export function SettingsSections({ pane }: { pane: boolean }) {
       </View>
       <Text variant="caption" tone="faint" style={{ paddingHorizontal: pane ? theme.space.md : 0 }}>
         {admin
-          ? 'Secrets, vantages, target rules, maintenance windows and outgoing mail will be set here as they arrive.'
-          : 'People and access tokens are managed by admins.'}
+          ? 'Engineers manage maintenance windows too; outgoing mail is for admins.'
+          : 'People, access tokens, secrets, target rules and outgoing mail are managed by admins.'}
       </Text>
     </View>
   );

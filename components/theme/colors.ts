@@ -28,6 +28,11 @@ export interface Palette {
   missing: string;
   focus: string;
   scrim: string;
+  /**
+   * Chart lines, one per step, in this order. Each also gets its own dash pattern
+   * (tokens.chart.dashes), so steps never differ by colour alone.
+   */
+  series: readonly string[];
 }
 
 export const lightPalette: Palette = {
@@ -51,6 +56,7 @@ export const lightPalette: Palette = {
   missing: '#77746C',
   focus: '#34479A',
   scrim: 'rgba(30, 35, 48, 0.32)',
+  series: ['#34479A', '#8A5F0E', '#2F7A78', '#7A3F78', '#5B6B2E', '#555B68'],
 };
 
 export const darkPalette: Palette = {
@@ -74,4 +80,5 @@ export const darkPalette: Palette = {
   missing: '#9A958A',
   focus: '#9EAEEA',
   scrim: 'rgba(0, 0, 0, 0.5)',
+  series: ['#9EAEEA', '#DDB662', '#7FC6C2', '#D39BD0', '#B5C77E', '#B4AD9F'],
 };

@@ -53,6 +53,37 @@ export const sizes = {
   ordinalColumn: 20,
   factLabel: 64,
   statusRow: 24,
+  /** Journeys: the list beside a journey's detail on wide screens. */
+  journeyPaneWidth: 296,
+  /** Editor: the side column (cautions, "Try it now") on wide screens. */
+  editorAsideWidth: 400,
+  chartHeight: 240,
+  chartLegendLine: 24,
+  /** Waterfall: phase names on the left, durations on the right, bars between. */
+  waterfallLabel: 76,
+  waterfallValue: 64,
+  waterfallBar: 10,
+  /** Columns and fields that hold a short figure. */
+  figureColumn: 96,
+  /** Side-by-side fields wrap below this width. */
+  fieldMin: 160,
+  orderButton: 36,
+} as const;
+
+// Chart drawing: line weights, marker sizes and one dash pattern per series (the patterns cycle
+// with the colours, so two steps never share both). The RN legend mirrors them with borderStyle.
+export const chart = {
+  lineWidth: 2,
+  axisFont: 11,
+  dotRadius: 3.5,
+  failRadius: 6,
+  voidRadius: 5,
+  dashes: [null, [7, 4], [2, 3]] as const,
+  legendStyles: ['solid', 'dashed', 'dotted'] as const,
+  padding: { left: 4, right: 12, top: 12, bottom: 4 },
+  /** Room inside the plot so the first and last runs are not drawn on the frame. */
+  domainPadding: { left: 8, right: 8 },
+  voidDash: [3, 2],
 } as const;
 
 // Font family names registered by useFonts in the root layout. On the web a CSS fallback

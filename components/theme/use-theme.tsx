@@ -1,7 +1,7 @@
 import { createContext, useContext, useMemo, type ReactNode } from 'react';
 import { useColorScheme } from 'react-native';
 import { darkPalette, lightPalette, type Palette } from './colors';
-import { borders, fonts, radii, sizes, space, type } from './tokens';
+import { borders, chart, fonts, radii, sizes, space, type } from './tokens';
 
 export interface Theme {
   scheme: 'light' | 'dark';
@@ -10,6 +10,7 @@ export interface Theme {
   radii: typeof radii;
   borders: typeof borders;
   sizes: typeof sizes;
+  chart: typeof chart;
   fonts: typeof fonts;
   type: typeof type;
 }
@@ -22,6 +23,7 @@ function makeTheme(scheme: 'light' | 'dark'): Theme {
     radii,
     borders,
     sizes,
+    chart,
     fonts,
     type,
   };

@@ -1,0 +1,5 @@
+import { JourneysFrame } from '../../../components/journeys/journeys-frame';
+
+export default function JourneysLayout() {
+  return <JourneysFrame />;
+}

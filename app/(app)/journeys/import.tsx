@@ -1,0 +1,5 @@
+import { HarImportScreen } from '../../../components/journeys/lazy-screens';
+
+export default function ImportHarRoute() {
+  return <HarImportScreen />;
+}

@@ -1,0 +1,5 @@
+import { SecretsScreen } from '../../../components/settings/secrets/secrets-screen';
+
+export default function SecretsRoute() {
+  return <SecretsScreen />;
+}

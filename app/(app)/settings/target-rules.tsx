@@ -1,0 +1,5 @@
+import { TargetRulesScreen } from '../../../components/settings/target-rules/target-rules-screen';
+
+export default function TargetRulesRoute() {
+  return <TargetRulesScreen />;
+}
