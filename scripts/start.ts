@@ -13,7 +13,13 @@ import { buildWeb } from './build-web';
 import { migrate } from './migrate';
 
 const root = path.resolve(__dirname, '..');
-const env = { ...process.env, PARALLAX_DATA_DIR: dataDir(), PARALLAX_DB_PORT: String(dbPort()) };
+const env = {
+  ...process.env,
+  PARALLAX_DATA_DIR: dataDir(),
+  PARALLAX_DB_PORT: String(dbPort()),
+  // Links in mail point at this server unless a public address is configured.
+  PARALLAX_PUBLIC_URL: process.env.PARALLAX_PUBLIC_URL ?? `http://127.0.0.1:${httpPort()}`,
+};
 const smtpPort = Number(process.env.PARALLAX_SMTP_PORT ?? 2525);
 const demoPort = Number(process.env.PARALLAX_DEMO_PORT ?? 8090);
 const vantage = process.env.PARALLAX_VANTAGE ?? 'local';
