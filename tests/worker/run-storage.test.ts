@@ -4,6 +4,7 @@ import crypto from 'node:crypto';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { JourneyDocumentInput } from '../../shared/journey/journey-schema';
 import { runsRepo } from '../../server/repositories/runs';
 import { secretsService } from '../../server/services/secrets';
 import { applyRunRetention } from '../../worker/retention';
@@ -36,7 +37,7 @@ describe('stored runs', () => {
     const actor = { type: 'token' as const, id: 0, name: 'test', scopes: [] };
     await secretsService(t.db.knex, key).save(actor, 'TEAPOT_KEY', SECRET);
     await t.db.knex('vantages').insert({ name: 'local' });
-    const doc = {
+    const doc: JourneyDocumentInput = {
       name: 'Echo',
       steps: [
         { name: 'login', method: 'GET', url: `${echoUrl}/login`, captures: [{ from: 'json', name: 'session', path: '$.sessionToken' }] },
