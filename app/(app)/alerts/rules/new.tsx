@@ -1,0 +1,5 @@
+import { RuleEditorScreen } from '../../../../components/rules/rule-editor-screen';
+
+export default function NewRuleRoute() {
+  return <RuleEditorScreen id={null} />;
+}

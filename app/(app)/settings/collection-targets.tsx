@@ -1,0 +1,5 @@
+import { CollectionTargetsScreen } from '../../../components/signals/lazy-screens';
+
+export default function CollectionTargetsRoute() {
+  return <CollectionTargetsScreen />;
+}

@@ -1,5 +1,0 @@
-import { PlaceEmptyScreen } from '../../components/places/place-empty-screen';
-
-export default function SignalsRoute() {
-  return <PlaceEmptyScreen place="signals" />;
-}

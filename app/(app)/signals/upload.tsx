@@ -1,0 +1,5 @@
+import { CsvUploadScreen } from '../../../components/signals/lazy-screens';
+
+export default function CsvUploadRoute() {
+  return <CsvUploadScreen />;
+}
