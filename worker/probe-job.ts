@@ -1,4 +1,5 @@
 // A vantage's prober: takes its queue's jobs, runs the journey, stores the run once per slot.
+import { setMaxListeners } from 'node:events';
 import type { Knex } from 'knex';
 import type PgBoss from 'pg-boss';
 import { referencedSecretNames } from '../shared/journey/template';
@@ -44,6 +45,8 @@ export async function startProber(boss: PgBoss, db: Knex, opts: ProberOptions): 
   const settings = probeSettingsService(db);
   const queue = probeQueue(opts.vantage);
   const shutdown = new AbortController();
+  // Every run in flight listens on the one shutdown signal (and each step again).
+  setMaxListeners(0, shutdown.signal);
 
   // A journey version never changes once saved, so it is read once per process.
   const versions = new Map<string, Promise<JourneyDocument | null>>();
