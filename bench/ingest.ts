@@ -5,7 +5,10 @@
 //  2. Latency of a 24 h rate query over 1 000 series (one sample a minute, the SDK's default
 //     export interval).
 // It starts its own PostgreSQL (scripts/db.sh, temporary data directory, its own port) and
-// removes it afterwards. Numbers are printed, never asserted.
+// removes it afterwards. Numbers are printed, never asserted. Beside the rates it prints the CPU
+// time each side used per batch (this process, which holds both client and server, and the
+// PostgreSQL processes, from /proc) and the load average: on a shared machine wall-clock rates
+// move with other people's work, CPU time far less.
 import { execFileSync } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
@@ -17,7 +20,7 @@ import { createApp } from '../server/app';
 import { createKnex } from '../server/db/knex';
 import { usersRepo } from '../server/repositories/users';
 import { tokensService } from '../server/services/tokens';
-import { freePort, privateCluster } from './lib/private-cluster';
+import { childrenCpuMs, freePort, privateCluster } from './lib/private-cluster';
 
 const SERIES = 1000;
 const POINTS_PER_SERIES = 10; // 1 000 series × 10 instants = 10 000 points per batch
@@ -63,11 +66,34 @@ function otlpBatch(service: string, signal: string, times: number[], value: (ser
   });
 }
 
-async function post(url: string, token: string, body: string): Promise<void> {
-  const res = await fetch(url, { method: 'POST', headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json' }, body });
-  const text = await res.text();
-  if (res.status !== 200 || text !== '{}') throw new Error(`intake answered ${res.status}: ${text.slice(0, 300)}`);
+// A plain node:http client with kept-alive connections: fetch copies every request body once
+// more, which in this shared process would be charged to the intake.
+const agent = new http.Agent({ keepAlive: true });
+
+function post(url: string, token: string, body: string | Buffer): Promise<void> {
+  const bytes = typeof body === 'string' ? Buffer.from(body, 'utf8') : body;
+  return new Promise((resolve, reject) => {
+    const req = http.request(url, {
+      method: 'POST',
+      agent,
+      headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json', 'content-length': bytes.length },
+    });
+    req.on('error', reject);
+    req.on('response', (res) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('error', reject);
+      res.on('end', () => {
+        const text = Buffer.concat(chunks).toString('utf8');
+        if (res.statusCode !== 200 || text !== '{}') reject(new Error(`intake answered ${res.statusCode}: ${text.slice(0, 300)}`));
+        else resolve();
+      });
+    });
+    req.end(bytes);
+  });
 }
+
+const diff = (after: number | null, before: number | null) => (after === null || before === null ? null : after - before);
 
 async function main() {
   const PORT = Number(process.env.PARALLAX_BENCH_DB_PORT ?? (await freePort()));
@@ -96,7 +122,11 @@ async function main() {
     const value = (s: number, k: number) => s + k;
     // Warm-up (not timed): creates the series and today's partitions, as a running system has them.
     await post(`${base}/v1/metrics`, token, otlpBatch('bench', 'bench.requests', timesOf(0), value));
-    const bodies = Array.from({ length: BATCHES }, (_, b) => otlpBatch('bench', 'bench.requests', timesOf(b + 1), value));
+    // Serialised to bytes before the clock starts, as the COPY side's files are written before
+    // its clock starts: the client shares this process, and encoding 2.5 MB strings per request
+    // would be charged to the intake.
+    const bodies = Array.from({ length: BATCHES }, (_, b) => Buffer.from(otlpBatch('bench', 'bench.requests', timesOf(b + 1), value), 'utf8'));
+    const cpu0 = { node: process.cpuUsage(), pg: cluster.cpuMs() };
     const t0 = performance.now();
     let next = 0;
     await Promise.all(
@@ -105,6 +135,8 @@ async function main() {
       }),
     );
     const httpSeconds = (performance.now() - t0) / 1000;
+    const nodeCpu = process.cpuUsage(cpu0.node);
+    const httpCpu = { node: (nodeCpu.user + nodeCpu.system) / 1000, pg: diff(cluster.cpuMs(), cpu0.pg) };
     const points = BATCHES * SERIES * POINTS_PER_SERIES;
 
     // The same rows, as COPY sees them, into a table of the same shape.
@@ -126,12 +158,14 @@ async function main() {
     const script = path.join(tmp, 'copy.sql');
     fs.writeFileSync(script, files.map((f) => `\\copy samples_copy (series_id, t, value) FROM '${f}' WITH (FORMAT csv)`).join('\n') + '\n');
     const psql = findPsql();
+    const cpu1 = { psql: childrenCpuMs(), pg: cluster.cpuMs() };
     const t1 = performance.now();
     execFileSync(psql, ['-X', '-q', '-v', 'ON_ERROR_STOP=1', '-h', '127.0.0.1', '-p', String(PORT), '-U', 'postgres', '-d', 'bench', '-f', script], {
       env: { ...process.env, PGPASSWORD: settings.password },
       stdio: ['ignore', 'ignore', 'inherit'],
     });
     const copySeconds = (performance.now() - t1) / 1000;
+    const copyCpu = { psql: diff(childrenCpuMs(), cpu1.psql), pg: diff(cluster.cpuMs(), cpu1.pg) };
     const copied = Number((await db.raw('SELECT count(*) AS n FROM samples_copy')).rows[0].n);
     const stored = Number((await db.raw(`SELECT count(*) AS n FROM samples s JOIN series x ON x.id = s.series_id JOIN signals g ON g.id = x.signal_id WHERE g.name = 'bench.requests'`)).rows[0].n);
     if (copied !== points || stored !== points + SERIES * POINTS_PER_SERIES) throw new Error(`row counts differ: copy ${copied}, intake ${stored}`);
@@ -142,6 +176,12 @@ async function main() {
     console.log(`[bench] intake over HTTP : ${Math.round(httpRate).toLocaleString('en')} points/s (${httpSeconds.toFixed(2)} s)`);
     console.log(`[bench] raw COPY (psql)  : ${Math.round(copyRate).toLocaleString('en')} points/s (${copySeconds.toFixed(2)} s)`);
     console.log(`[bench] ratio intake/COPY: ${(httpRate / copyRate).toFixed(2)} (target ≥ 0.5)`);
+    // CPU time per batch is far steadier than wall time on a shared machine (load average beside it).
+    const perBatch = (ms: number | null) => (ms === null ? '?' : (ms / BATCHES).toFixed(0));
+    console.log(
+      `[bench] CPU per batch    : intake ${perBatch(httpCpu.node)} ms (this process, client included) + PostgreSQL ${perBatch(httpCpu.pg)} ms; ` +
+        `COPY psql ${perBatch(copyCpu.psql)} ms + PostgreSQL ${perBatch(copyCpu.pg)} ms; load average ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}`,
+    );
 
     // ---- 2. A 24 h rate query over 1 000 series --------------------------------------------
     if (process.env.BENCH_SKIP_QUERY) return;
@@ -174,6 +214,7 @@ async function main() {
     console.log(`[bench] 24 h rate over ${SERIES} series (${rows.toLocaleString('en')} samples, 5 min window and step, ${groups} groups by zone)`);
     console.log(`[bench] query latency: median ${latencies[Math.floor(latencies.length / 2)]!.toFixed(0)} ms, best ${latencies[0]!.toFixed(0)} ms, worst ${latencies[latencies.length - 1]!.toFixed(0)} ms over ${QUERY_RUNS} runs`);
   } finally {
+    agent.destroy();
     if (server) await new Promise((r) => server!.close(r));
     await db?.destroy();
     await pool?.end();

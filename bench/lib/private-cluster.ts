@@ -20,6 +20,41 @@ export interface PrivateCluster {
   createMigratedDatabase(name: string): Promise<DbSettings>;
   /** Stops the cluster and deletes its files. */
   destroy(): void;
+  /**
+   * CPU time (user + system, ms) used so far by the server and its running processes (backends,
+   * WAL writer, checkpointer), read from /proc; null where there is no /proc. On a shared machine
+   * this moves far less with other people's load than wall-clock time.
+   */
+  cpuMs(): number | null;
+}
+
+// Linux reports times in clock ticks, 100 a second on every common platform.
+const TICKS_PER_SECOND = 100;
+
+/**
+ * The parent pid, utime + stime (fields 14 and 15 of /proc/<pid>/stat) and cutime + cstime (16
+ * and 17: children that exited, such as the backend of a psql session that ended), or null.
+ */
+function procStat(pid: string): { ppid: number; ticks: number; childTicks: number } | null {
+  try {
+    const text = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+    // The command name (field 2) may hold spaces; everything after its closing parenthesis is plain.
+    const f = text.slice(text.lastIndexOf(')') + 2).split(' ');
+    return { ppid: Number(f[1]), ticks: Number(f[11]) + Number(f[12]), childTicks: Number(f[13]) + Number(f[14]) };
+  } catch {
+    return null;
+  }
+}
+
+/** CPU ms of this process's finished children (psql run with execFileSync), or null. */
+export function childrenCpuMs(): number | null {
+  try {
+    const text = fs.readFileSync('/proc/self/stat', 'utf8');
+    const f = text.slice(text.lastIndexOf(')') + 2).split(' ');
+    return ((Number(f[13]) + Number(f[14])) * 1000) / TICKS_PER_SECOND;
+  } catch {
+    return null;
+  }
 }
 
 /**
@@ -66,6 +101,23 @@ export function privateCluster(opts: { port: number; mode?: 'normal' | 'test'; l
         await db.destroy();
       }
       return dbSettings(env, name);
+    },
+    cpuMs() {
+      const pgDirFile = path.join(dataDir, 'pg-dir');
+      try {
+        const pgDir = fs.readFileSync(pgDirFile, 'utf8').trim();
+        const postmaster = fs.readFileSync(path.join(pgDir, 'postmaster.pid'), 'utf8').split('\n')[0]!.trim();
+        let ticks = 0;
+        for (const pid of fs.readdirSync('/proc')) {
+          if (!/^\d+$/.test(pid)) continue;
+          const st = procStat(pid);
+          if (st && pid === postmaster) ticks += st.ticks + st.childTicks;
+          else if (st && String(st.ppid) === postmaster) ticks += st.ticks;
+        }
+        return (ticks * 1000) / TICKS_PER_SECOND;
+      } catch {
+        return null;
+      }
     },
     destroy() {
       try {

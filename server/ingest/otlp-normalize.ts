@@ -9,26 +9,10 @@
 // the whole request malformed (400). Values that are well-formed but unusable — NaN or infinite,
 // bucket counts that do not match the bounds — reject only their data point (partial success).
 import type { IngestPoint } from '../signals/ingest-service';
-import { canonicalLabels, type CanonicalLabels } from '../signals/labels';
+import { LabelSets } from './otlp-label-sets';
+import { attributes, doubleValue, intValue, list, MalformedOtlpError, nanosToMs, obj, rethrowWithin, str } from './otlp-values';
 
-export class MalformedOtlpError extends Error {
-  constructor(
-    public path: string,
-    readonly reason: string,
-  ) {
-    super(`${path}: ${reason}`);
-  }
-  /** Paths inside data points are relative until an error needs them whole (no strings per point). */
-  within(prefix: string): this {
-    this.path = this.path ? `${prefix}.${this.path}` : prefix;
-    this.message = `${this.path}: ${this.reason}`;
-    return this;
-  }
-}
-
-function rethrowWithin(e: unknown, prefix: string): never {
-  throw e instanceof MalformedOtlpError ? e.within(prefix) : e;
-}
+export { MalformedOtlpError } from './otlp-values';
 
 export interface NormalizedRequest {
   points: IngestPoint[];
@@ -36,96 +20,6 @@ export interface NormalizedRequest {
   rejected: Map<string, number>;
   /** Data points deliberately skipped (flagged "no recorded value"). */
   skipped: number;
-}
-
-type Obj = Record<string, unknown>;
-
-const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
-
-function list(v: unknown, path: string): unknown[] {
-  if (v === undefined || v === null) return [];
-  if (!Array.isArray(v)) throw new MalformedOtlpError(path, 'must be a list');
-  return v;
-}
-function obj(v: unknown, path: string): Obj {
-  if (!isObj(v)) throw new MalformedOtlpError(path, 'must be an object');
-  return v;
-}
-function str(v: unknown, path: string): string {
-  if (v === undefined || v === null) return '';
-  if (typeof v !== 'string') throw new MalformedOtlpError(path, 'must be a string');
-  return v;
-}
-
-/** fixed64 nanoseconds as a decimal string or a number → ms (fractions keep microseconds). */
-function nanosToMs(v: unknown, path: string): number | null {
-  if (v === undefined || v === null) return null;
-  if (typeof v === 'number') {
-    if (!Number.isFinite(v) || v < 0) throw new MalformedOtlpError(path, 'must be a non-negative integer');
-    return v === 0 ? null : v / 1e6;
-  }
-  if (typeof v !== 'string' || !/^\d{1,20}$/.test(v)) throw new MalformedOtlpError(path, 'must be nanoseconds as a decimal string or number');
-  if (v.length <= 3) return Number(v) === 0 ? null : Number(v) / 1e6;
-  // Whole microseconds stay exact in a double; the nanosecond remainder is below storage precision.
-  const us = Number(v.slice(0, -3));
-  return us === 0 ? null : us / 1000;
-}
-
-/** int64 / uint64 as a decimal string or a number. */
-function intValue(v: unknown, path: string): number {
-  if (typeof v === 'number') {
-    if (!Number.isInteger(v)) throw new MalformedOtlpError(path, 'must be an integer');
-    return v;
-  }
-  if (typeof v === 'string' && /^-?\d{1,20}$/.test(v)) return Number(v);
-  throw new MalformedOtlpError(path, 'must be an integer as a decimal string or number');
-}
-
-/** double: a number, or proto3 JSON's "NaN" / "Infinity" / "-Infinity" / numeric text. */
-function doubleValue(v: unknown, path: string): number {
-  if (typeof v === 'number') return v;
-  if (typeof v === 'string') {
-    if (v === 'NaN') return NaN;
-    if (v === 'Infinity') return Infinity;
-    if (v === '-Infinity') return -Infinity;
-    if (v.trim() !== '' && Number.isFinite(Number(v))) return Number(v);
-  }
-  throw new MalformedOtlpError(path, 'must be a number');
-}
-
-function anyValueText(v: unknown, path: string): string {
-  if (!isObj(v)) return '';
-  if ('stringValue' in v) return str(v.stringValue, `${path}.stringValue`);
-  if ('boolValue' in v) return String(v.boolValue === true || v.boolValue === 'true');
-  if ('intValue' in v) return String(intValue(v.intValue, `${path}.intValue`));
-  if ('doubleValue' in v) return String(doubleValue(v.doubleValue, `${path}.doubleValue`));
-  if ('bytesValue' in v) return str(v.bytesValue, `${path}.bytesValue`);
-  if ('arrayValue' in v) {
-    const values = list(obj(v.arrayValue, `${path}.arrayValue`).values, `${path}.arrayValue.values`);
-    return JSON.stringify(values.map((x, i) => anyValueText(x, `${path}.arrayValue.values.${i}`)));
-  }
-  if ('kvlistValue' in v) {
-    const values = list(obj(v.kvlistValue, `${path}.kvlistValue`).values, `${path}.kvlistValue.values`);
-    return JSON.stringify(Object.fromEntries(attributes(values, `${path}.kvlistValue.values`)));
-  }
-  return '';
-}
-
-function attributes(v: unknown, path: string): Array<[string, string]> {
-  const out: Array<[string, string]> = [];
-  const items = list(v, path);
-  for (let i = 0; i < items.length; i++) {
-    try {
-      const kv = obj(items[i], 'kv');
-      const key = str(kv.key, 'key');
-      if (key) out.push([key, anyValueText(kv.value, 'value')]);
-    } catch (e) {
-      // 'kv' marks the item itself.
-      if (e instanceof MalformedOtlpError && e.path === 'kv') e.path = '';
-      rethrowWithin(e, `${path}.${i}`);
-    }
-  }
-  return out;
 }
 
 function temporality(v: unknown, path: string): 'delta' | 'cumulative' | null {
@@ -151,23 +45,8 @@ export function normalizeExportRequest(body: unknown): NormalizedRequest {
     const resAttrs = new Map(attributes(rm.resource === undefined ? [] : obj(rm.resource, `${rp}.resource`).attributes, `${rp}.resource.attributes`));
     const service = (resAttrs.get('service.name') ?? '').trim().slice(0, 200) || 'unknown_service';
     const instance = resAttrs.get('service.instance.id');
-    // Points of one series repeat the same attributes: canonical labels are made once per
-    // distinct attribute list (as sent), not once per point.
-    const labelCache = new Map<string, CanonicalLabels>();
-    const pointLabels = (v: unknown, path: string): CanonicalLabels => {
-      const pairs = attributes(v, path);
-      let raw = '';
-      for (const [k, x] of pairs) raw += `${k}\u0000${x}\u0001`;
-      let c = labelCache.get(raw);
-      if (!c) {
-        const input: Record<string, string> = {};
-        if (instance !== undefined) input['service.instance.id'] = instance;
-        for (const [k, x] of pairs) input[k] = x;
-        c = canonicalLabels(input);
-        labelCache.set(raw, c);
-      }
-      return c;
-    };
+    const labelSets = new LabelSets(instance);
+    const pointLabels = (v: unknown, path: string) => labelSets.of(v, path);
 
     const sms = list(rm.scopeMetrics, `${rp}.scopeMetrics`);
     for (let s = 0; s < sms.length; s++) {

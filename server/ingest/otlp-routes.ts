@@ -4,6 +4,7 @@
 // application/x-protobuf. 200 only after the points are committed; 503 + Retry-After when the
 // database cannot be reached and 429 + Retry-After when too many requests are in progress, both
 // of which OTLP clients retry.
+import { isAscii } from 'node:buffer';
 import { Router, type ErrorRequestHandler, type Request, type RequestHandler } from 'express';
 import type { Knex } from 'knex';
 import type { Principal } from '../auth/principal';
@@ -43,6 +44,15 @@ function grpcCode(status: number): number {
   if (status === 413 || status === 429) return 8; // RESOURCE_EXHAUSTED
   if (status === 503) return 14; // UNAVAILABLE
   return 13; // INTERNAL
+}
+
+/**
+ * The body as text. OTLP/JSON is nearly always plain ASCII, and ASCII read as Latin-1 is the same
+ * text: decoding it as UTF-8 took 10–15 ms of a 2.5 MB export in bench/ingest.ts, the check and
+ * the Latin-1 copy about 2.
+ */
+function bodyText(raw: Buffer): string {
+  return isAscii(raw) ? raw.toString('latin1') : raw.toString('utf8');
 }
 
 export function otlpMetricsRoutes(db: Knex, opts: OtlpIntakeOptions = {}): Router {
@@ -86,7 +96,7 @@ export function otlpMetricsRoutes(db: Knex, opts: OtlpIntakeOptions = {}): Route
     const raw = await readBody(req, limit);
     let body: unknown;
     try {
-      body = encoding === 'json' ? JSON.parse(raw.toString('utf8')) : decodeExportMetricsRequest(raw);
+      body = encoding === 'json' ? JSON.parse(bodyText(raw)) : decodeExportMetricsRequest(raw);
     } catch (e) {
       if (e instanceof SyntaxError) throw new AppError(400, 'validation', `The body is not valid JSON: ${e.message}`);
       if (e instanceof ProtobufDecodeError) throw new AppError(400, 'validation', e.message);

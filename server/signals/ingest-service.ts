@@ -57,7 +57,9 @@ interface CachedSeries {
   kind: SignalKind;
 }
 interface Caches {
-  series: Map<string, CachedSeries>;
+  /** service + signal → labels key → series. Two levels, so a point is found without building a key string. */
+  series: Map<string, Map<string, CachedSeries>>;
+  seriesCount: number;
   /** Newest time written to last_sample_at, per series and per signal (see touch()). */
   touched: Map<number, number>;
   touchedSignals: Map<number, number>;
@@ -78,14 +80,13 @@ const TOUCH_EVERY_MS = 60_000;
 function cachesFor(db: Knex): Caches {
   let c = cachesByDb.get(db);
   if (!c) {
-    c = { series: new Map(), touched: new Map(), touchedSignals: new Map(), days: { samples: new Set(), histogram_points: new Set() } };
+    c = { series: new Map(), seriesCount: 0, touched: new Map(), touchedSignals: new Map(), days: { samples: new Set(), histogram_points: new Set() } };
     cachesByDb.set(db, c);
   }
   return c;
 }
 
 const signalKey = (p: { service: string; signal: string }) => `${p.service}\u0001${p.signal}`;
-const seriesKey = (p: IngestPoint) => `${p.service}\u0001${p.signal}\u0001${p.labelsKey}`;
 
 const NO_PARTITION = /no partition of relation/i;
 
@@ -113,12 +114,22 @@ export function ingestService(db: Knex, opts: { now?: () => number } = {}) {
     tx: Knex,
     points: IngestPoint[],
     rejected: IngestRejection[],
-    fresh: Map<string, CachedSeries>,
+    fresh: Array<[IngestPoint, CachedSeries]>,
   ): Promise<Resolved[]> {
     const out: Resolved[] = [];
     const missing: IngestPoint[] = [];
+    // Points come in runs of one signal (an OTLP metric, a CSV's rows): the signal's map is looked
+    // up once per run, and a series by its labels key, a string the points of a series share.
+    let service: string | undefined;
+    let signal: string | undefined;
+    let bySignal: Map<string, CachedSeries> | undefined;
     for (const p of points) {
-      const hit = caches.series.get(seriesKey(p));
+      if (p.signal !== signal || p.service !== service) {
+        service = p.service;
+        signal = p.signal;
+        bySignal = caches.series.get(signalKey(p));
+      }
+      const hit = bySignal?.get(p.labelsKey);
       if (!hit) missing.push(p);
       else if (hit.kind !== p.kind) rejected.push(kindMismatch(p, hit.kind));
       else out.push({ p, seriesId: hit.seriesId, signalId: hit.signalId });
@@ -151,7 +162,7 @@ export function ingestService(db: Knex, opts: { now?: () => number } = {}) {
     for (const p of ok) {
       const s = signalByKey.get(signalKey(p))!;
       const seriesId = seriesIds.get(`${s.id}:${labelsHash(p.labelsKey)}`)!;
-      fresh.set(seriesKey(p), { seriesId, signalId: s.id, kind: s.kind });
+      fresh.push([p, { seriesId, signalId: s.id, kind: s.kind }]);
       out.push({ p, seriesId, signalId: s.id });
     }
     return out;
@@ -160,7 +171,7 @@ export function ingestService(db: Knex, opts: { now?: () => number } = {}) {
   async function writeOnce(points: IngestPoint[]) {
     await ensurePartitions(points);
     const rejected: IngestRejection[] = [];
-    const fresh = new Map<string, CachedSeries>();
+    const fresh: Array<[IngestPoint, CachedSeries]> = [];
     const result = await db.transaction(async (tx) => {
       const resolved = await resolveSeries(tx, points, rejected, fresh);
       const cumulative = resolved.filter((r) => !r.p.delta);
@@ -184,7 +195,7 @@ export function ingestService(db: Knex, opts: { now?: () => number } = {}) {
           samples.values.push(p.value);
         }
       }
-      const inserted = (await insertSamplesOnce(tx, samples)) + (await samplesRepo.insertHistograms(tx, hists));
+      const inserted = (await samplesRepo.insertSamples(tx, samples)) + (await samplesRepo.insertHistograms(tx, hists));
       return {
         rejected,
         accepted: inserted,
@@ -193,8 +204,17 @@ export function ingestService(db: Knex, opts: { now?: () => number } = {}) {
       };
     });
     // Committed: from here on the ids are real.
-    if (caches.series.size > CACHE_LIMIT) caches.series.clear();
-    for (const [k, v] of fresh) caches.series.set(k, v);
+    if (caches.seriesCount > CACHE_LIMIT) {
+      caches.series.clear();
+      caches.seriesCount = 0;
+    }
+    for (const [p, v] of fresh) {
+      const k = signalKey(p);
+      let bySignal = caches.series.get(k);
+      if (!bySignal) caches.series.set(k, (bySignal = new Map()));
+      if (!bySignal.has(p.labelsKey)) caches.seriesCount++;
+      bySignal.set(p.labelsKey, v);
+    }
     return result;
   }
 
@@ -250,20 +270,6 @@ export function ingestService(db: Knex, opts: { now?: () => number } = {}) {
       return { accepted: result.accepted, duplicates: result.duplicates, rejected: rejected.concat(result.rejected) };
     },
   };
-}
-
-/**
- * Points are almost always new, so they are first inserted without conflict handling inside a
- * savepoint; only when some already exist (a retried export) is the insert redone skipping them.
- */
-async function insertSamplesOnce(tx: Knex, rows: SampleRows): Promise<number> {
-  if (rows.seriesIds.length === 0) return 0;
-  try {
-    return await tx.transaction((sp) => samplesRepo.insertSamples(sp, rows, { skipExisting: false }));
-  } catch (e) {
-    if ((e as { code?: string }).code !== '23505') throw e;
-    return samplesRepo.insertSamples(tx, rows, { skipExisting: true });
-  }
 }
 
 function kindMismatch(p: IngestPoint, stored: SignalKind): IngestRejection {

@@ -8,7 +8,7 @@ import { ValidationError } from '../../errors';
 import { auditRepo } from '../../repositories/audit';
 import { batchPointToIngest } from '../batch-points';
 import { ingestService, type IngestPoint } from '../ingest-service';
-import { readCsv } from './rfc4180-reader';
+import { readCsv } from './read-csv';
 
 export const PREVIEW_ROWS = 20;
 export const MAX_REPORTED_ERRORS = 1000;

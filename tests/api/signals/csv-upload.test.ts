@@ -93,6 +93,36 @@ describe('CSV upload', () => {
     expect(none.body.error.field).toBe('file');
   });
 
+  it('keeps quoted fields with delimiters and line breaks, and reports badly quoted rows by row', async () => {
+    const quoted = [
+      'timestamp,host,requests',
+      '2026-01-11T00:00:00Z,"web-1, east",10', // row 2: a comma inside quotes (RFC 4180 §2.6)
+      '2026-01-11T00:01:00Z,"web-1\r\neast",20', // row 3: a line break inside quotes (§2.6), two lines of the file
+      '2026-01-11T00:02:00Z,web-1 "east",30', // row 4: a quote in an unquoted field (§2.5)
+      '2026-01-11T00:03:00Z,"web-1" east,40', // row 5: text after the closing quote (§2.7)
+      '2026-01-11T00:04:00Z,"web-1 ""east""",50', // row 6: quotes written twice (§2.7)
+    ].join('\r\n');
+    const quotedMapping = { ...mapping, signal: { value: 'quoted.requests' }, kind: { value: 'counter' } };
+    const res = await upload(engineer, quoted, { mapping: quotedMapping });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ rows: 5, imported: 3, duplicates: 0, rejected: 2 });
+    expect(res.body.errors).toEqual([
+      { row: 4, field: '', message: expect.stringMatching(/§2\.5/) },
+      { row: 5, field: '', message: expect.stringMatching(/§2\.7/) },
+    ]);
+    const rows = await t.db.knex.raw(
+      `SELECT x.labels->>'host' AS host, s.value FROM samples s JOIN series x ON x.id = s.series_id JOIN signals g ON g.id = x.signal_id
+       WHERE g.name = 'quoted.requests' ORDER BY s.t`,
+    );
+    expect(rows.rows).toEqual([
+      { host: 'web-1, east', value: 10 },
+      { host: 'web-1\r\neast', value: 20 },
+      { host: 'web-1 "east"', value: 50 },
+    ]);
+    const again = await upload(engineer, quoted, { mapping: quotedMapping });
+    expect(again.body).toMatchObject({ rows: 5, imported: 0, duplicates: 3, rejected: 2 });
+  });
+
   it('is for engineers and admins only', async () => {
     expect((await upload(reviewer, CSV, { preview: true })).status).toBe(403);
   });

@@ -95,6 +95,13 @@ describe('OTLP intake: mapping to services, signals and series', () => {
     expect(await samplesOf('numbers', 'c')).toEqual([{ labels: {}, t: T0, value: 7 }]);
   });
 
+  it('reads UTF-8 JSON bodies as well as plain ASCII ones', async () => {
+    const body = exportRequest('café', [gaugeMetric('temp', [{ t: T0, value: 21, labels: { city: 'Zürich', note: 'naïve ✓' } }])]);
+    const res = await post(body);
+    expect(res.status).toBe(200);
+    expect(await samplesOf('café', 'temp')).toEqual([{ labels: { city: 'Zürich', note: 'naïve ✓' }, t: T0, value: 21 }]);
+  });
+
   it('stores a re-sent request once (the unique key makes retries idempotent)', async () => {
     const body = exportRequest('retry', [sumMetric('c', [{ t: T0, value: 1 }, { t: T0 + 1000, value: 2, labels: { a: 'b' } }])]);
     expect((await post(body)).status).toBe(200);
