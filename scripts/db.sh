@@ -92,7 +92,10 @@ case "$cmd" in
       echo "include 'parallax.conf'" >> "$pgdata/postgresql.conf"
       [ $as_root = 1 ] && chown postgres:postgres "$pgdata/parallax.conf"
     fi
-    if is_up; then log "already running on 127.0.0.1:$port"; exit 0; fi
+    if is_up; then
+      if run_pg "$bindir/pg_ctl" -D "$pgdata" status >/dev/null 2>&1; then log "already running on 127.0.0.1:$port"; exit 0; fi
+      log "port $port is taken by another server (not the cluster in $pgdata): set PARALLAX_DB_PORT"; exit 1
+    fi
     # A stale pid file from a killed server would stop pg_ctl: it handles that itself.
     run_pg "$bindir/pg_ctl" -D "$pgdata" -o "-p $port" -l "$pgdata/server.log" -w -t 60 start >/dev/null || {
       log "start failed; last lines of $pgdata/server.log:"; tail -n 20 "$pgdata/server.log" >&2 || true; exit 1; }
