@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { durationSchema, instantSchema, serviceNameSchema } from '../schemas/signals';
 import type { Labels } from './label-groups';
 import type { ReplayResult } from './replay';
-import { ruleDocumentSchema, type RuleDocument, type RuleKind, type Severity } from './rule-schema';
+import { httpUrlSchema, ruleDocumentSchema, type RuleDocument, type RuleKind, type Severity } from './rule-schema';
 import type { NoDataReason, OpenAlertState, TransitionKind } from './state-machine';
 
 export const DEFAULT_REPLAY_MS = 7 * 86_400_000;
@@ -182,18 +182,8 @@ export interface MaintenanceWindowView {
 // Webhook channels
 // ---------------------------------------------------------------------------------------------
 
-export const webhookUrlSchema = z
-  .string()
-  .trim()
-  .max(2000)
-  .refine((u) => {
-    try {
-      const p = new URL(u);
-      return p.protocol === 'http:' || p.protocol === 'https:';
-    } catch {
-      return false;
-    }
-  }, 'a full http or https URL');
+/** A webhook address: a full http or https URL, the same rule as a runbook link. */
+export const webhookUrlSchema = httpUrlSchema;
 
 export const channelSchema = z.object({
   name: z.string().trim().min(1, 'Give the channel a name').max(120),

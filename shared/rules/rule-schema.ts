@@ -89,7 +89,7 @@ const labelName = z.string().trim().min(1, 'a label name').max(200);
 const comparison = z.enum(COMPARISONS, { message: `op is one of ${COMPARISONS.join(' ')}` });
 const share = (what: string) => finite(what).pipe(z.number().min(0, `${what} is a share between 0 and 1`).max(1, `${what} is a share between 0 and 1`));
 
-export const runbookUrlSchema = z
+export const httpUrlSchema = z
   .string()
   .trim()
   .max(2000)
@@ -101,6 +101,7 @@ export const runbookUrlSchema = z
       return false;
     }
   }, 'a full http or https URL');
+export const runbookUrlSchema = httpUrlSchema;
 
 /** Fields every rule kind has. */
 const common = {
