@@ -270,6 +270,15 @@ describe.each(SIZES)('journeys at $name size', (size) => {
       expect(await page.content()).not.toContain(secretValue);
       await screenshot(page, `settings-secrets-${size.name}`);
 
+      // Deleting asks first; "Keep it" keeps it, confirming removes it from the page and the database.
+      await byId(`secret-delete-${secretName}`).click();
+      await byId(`secret-delete-cancel-${secretName}`).click();
+      await byId(`secret-row-${secretName}`).waitFor({ timeout: 20_000 });
+      await byId(`secret-delete-${secretName}`).click();
+      await byId(`secret-delete-confirm-${secretName}`).click();
+      await byId(`secret-row-${secretName}`).waitFor({ state: 'detached', timeout: 20_000 });
+      expect(await server.db.knex('secrets').where({ name: secretName }).first()).toBeUndefined();
+
       await page.goto(`${server.url}/settings/vantages`);
       await byId('vantage-row-local').waitFor({ timeout: 20_000 });
       await expect(byId('vantage-status-local').innerText()).resolves.toContain('Up');

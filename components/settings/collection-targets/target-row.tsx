@@ -7,6 +7,7 @@ import { formatRelative } from '../../format/time';
 import { FieldMessage } from '../../forms/field-message';
 import { useTheme } from '../../theme';
 import { Button } from '../../ui/button';
+import { ConfirmStrip } from '../../ui/confirm-strip';
 import { StatusMark, type StatusTone } from '../../ui/status-mark';
 import { Text } from '../../ui/text';
 
@@ -76,13 +77,15 @@ export function TargetRow({ target, writer, onEdit }: { target: CollectionTarget
         </View>
       ) : null}
       {confirming ? (
-        <View style={{ gap: theme.space.sm }}>
-          <Text variant="small">{`Remove ${target.name}? It is no longer collected; samples already stored stay.`}</Text>
-          <View style={{ flexDirection: 'row', gap: theme.space.sm }}>
-            <Button label="Remove target" kind="danger" compact busy={remove.isPending} onPress={() => remove.mutate(target.id, { onSuccess: () => setConfirming(false) })} testID={`target-delete-confirm-${target.name}`} />
-            <Button label="Keep it" kind="quiet" compact onPress={() => setConfirming(false)} testID={`target-delete-cancel-${target.name}`} />
-          </View>
-        </View>
+        <ConfirmStrip
+          question={`Remove ${target.name}? It is no longer collected; samples already stored stay.`}
+          confirmLabel="Remove target"
+          busy={remove.isPending}
+          onConfirm={() => remove.mutate(target.id, { onSuccess: () => setConfirming(false) })}
+          onCancel={() => setConfirming(false)}
+          confirmTestID={`target-delete-confirm-${target.name}`}
+          cancelTestID={`target-delete-cancel-${target.name}`}
+        />
       ) : null}
       {remove.isError ? <FieldMessage error={describeError(remove.error)} /> : null}
     </View>

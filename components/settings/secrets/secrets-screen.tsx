@@ -14,6 +14,7 @@ import { TextField } from '../../forms/text-field';
 import { useTheme } from '../../theme';
 import { Button } from '../../ui/button';
 import { Card } from '../../ui/card';
+import { ConfirmStrip } from '../../ui/confirm-strip';
 import { EmptyState } from '../../ui/empty-state';
 import { Loading } from '../../ui/loading';
 import { Notice } from '../../ui/notice';
@@ -108,13 +109,15 @@ function SecretRow({ secret }: { secret: SecretMeta }) {
         {confirming ? null : <Button label="Delete" kind="danger" compact onPress={() => setConfirming(true)} testID={`secret-delete-${secret.name}`} />}
       </View>
       {confirming ? (
-        <View style={{ gap: theme.space.sm }}>
-          <Text variant="small">{`Delete ${secret.name}? Journeys that use it cannot be saved again, and their runs fail, until it is added back.`}</Text>
-          <View style={{ flexDirection: 'row', gap: theme.space.sm }}>
-            <Button label="Delete secret" kind="danger" compact busy={remove.isPending} onPress={() => remove.mutate(secret.name, { onSuccess: () => setConfirming(false) })} testID={`secret-delete-confirm-${secret.name}`} />
-            <Button label="Keep it" kind="quiet" compact onPress={() => setConfirming(false)} testID={`secret-delete-cancel-${secret.name}`} />
-          </View>
-        </View>
+        <ConfirmStrip
+          question={`Delete ${secret.name}? Journeys that use it cannot be saved again, and their runs fail, until it is added back.`}
+          confirmLabel="Delete secret"
+          busy={remove.isPending}
+          onConfirm={() => remove.mutate(secret.name, { onSuccess: () => setConfirming(false) })}
+          onCancel={() => setConfirming(false)}
+          confirmTestID={`secret-delete-confirm-${secret.name}`}
+          cancelTestID={`secret-delete-cancel-${secret.name}`}
+        />
       ) : null}
       {remove.isError ? <FieldMessage error={describeError(remove.error)} /> : null}
     </View>

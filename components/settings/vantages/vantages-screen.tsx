@@ -12,6 +12,7 @@ import { loadJourneySchemas } from '../../forms/journey-schemas';
 import { TextField } from '../../forms/text-field';
 import { useTheme } from '../../theme';
 import { Button } from '../../ui/button';
+import { ConfirmStrip } from '../../ui/confirm-strip';
 import { Card } from '../../ui/card';
 import { EmptyState } from '../../ui/empty-state';
 import { Loading } from '../../ui/loading';
@@ -119,13 +120,15 @@ function VantageRow({ vantage, admin }: { vantage: VantageView; admin: boolean }
         </View>
       </View>
       {confirming ? (
-        <View style={{ gap: theme.space.sm }}>
-          <Text variant="small">{`Remove ${vantage.name}? Journeys that run from it stop being scheduled there; its past runs stay.`}</Text>
-          <View style={{ flexDirection: 'row', gap: theme.space.sm }}>
-            <Button label="Remove vantage" kind="danger" compact busy={remove.isPending} onPress={() => remove.mutate(vantage.name, { onSuccess: () => setConfirming(false) })} testID={`vantage-delete-confirm-${vantage.name}`} />
-            <Button label="Keep it" kind="quiet" compact onPress={() => setConfirming(false)} testID={`vantage-delete-cancel-${vantage.name}`} />
-          </View>
-        </View>
+        <ConfirmStrip
+          question={`Remove ${vantage.name}? Journeys that run from it stop being scheduled there; its past runs stay.`}
+          confirmLabel="Remove vantage"
+          busy={remove.isPending}
+          onConfirm={() => remove.mutate(vantage.name, { onSuccess: () => setConfirming(false) })}
+          onCancel={() => setConfirming(false)}
+          confirmTestID={`vantage-delete-confirm-${vantage.name}`}
+          cancelTestID={`vantage-delete-cancel-${vantage.name}`}
+        />
       ) : null}
       {remove.isError ? <FieldMessage error={describeError(remove.error)} /> : null}
     </View>
